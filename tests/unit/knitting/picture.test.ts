@@ -120,15 +120,18 @@ describe('otsuThreshold (Otsu 1979)', () => {
     }), { numRuns: 500 })
   })
 
+  /** A 256-bin histogram with every pixel at one level. */
+  const onlyLevel = (level: number) => Object.assign(new Array<number>(256).fill(0), { [level]: 9 })
+
   it.each([
     // [histogram, t, rule]
     [[5, 5, 0, 0, 0, 5, 5], 1, 'our tie rule: in a run of empty bins, t is the last occupied dark level'],
     [[1, 0, 1, 0, 1], 0, 'our tie rule: {0}|{2,4} and {0,2}|{4} score the same; the smallest t wins'],
     [[0, 0, 7, 0, 0], 2, 'our rule: one occupied level, t = ⌊(5 − 1)/2⌋ = 2'],
-    [Object.assign(new Array(256).fill(0), { 0: 9 }), 127, 'our rule: a uniformly black picture is all dark'],
-    [Object.assign(new Array(256).fill(0), { 255: 9 }), 127, 'our rule: a uniformly white picture is all light'],
+    [onlyLevel(0), 127, 'our rule: a uniformly black picture is all dark'],
+    [onlyLevel(255), 127, 'our rule: a uniformly white picture is all light'],
     [[3, 1], 0, 'two bins: the only split'],
-  ])('%j → %i — %s', (h, t) => {
+  ] as [number[], number, string][])('%j → %i — %s', (h, t) => {
     expect(otsuThreshold(h)).toBe(t)
   })
 
