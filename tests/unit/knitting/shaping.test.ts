@@ -73,7 +73,7 @@ describe('spaceAcrossRow — declared convention: changes + 1 gaps, never at an 
     [12, 1, [6, 6]],
     [2, 1, [1, 1]],
     [7, 6, [1, 1, 1, 1, 1, 1, 1]],
-    [100, 6, [14, 15, 14, 14, 15, 14, 14]],
+    [100, 6, [14, 15, 14, 14, 14, 15, 14]],
   ])('%i stitches, %i changes → groups %j', (stitches, changes, groups) => {
     const out = spaceAcrossRow(stitches, changes)
     expect(out.groups).toEqual(groups)
