@@ -1,0 +1,56 @@
+import { pwa } from './pwa.config'
+
+// srcDir is the project root: pages/, components/ … stand beside server/ and shared/.
+export default defineNuxtConfig({
+  compatibilityDate: '2026-11-01',
+  srcDir: '.',
+  // The whole app is client-rendered: the tablet must reload any page offline from the
+  // service worker's cached shell, and SSR pages cannot be served that way (see DEVELOPERS.md).
+  ssr: false,
+  devtools: { enabled: false },
+  modules: [
+    '@nuxtjs/tailwindcss',
+    '@pinia/nuxt',
+    '@vueuse/nuxt',
+    'nuxt-auth-utils',
+    '@vite-pwa/nuxt',
+    '@nuxt/eslint',
+    '@nuxt/test-utils/module',
+  ],
+  css: [
+    '@fontsource/nunito/400.css',
+    '@fontsource/nunito/600.css',
+    '@fontsource/nunito/800.css',
+    '~/assets/css/main.css',
+  ],
+  app: {
+    head: {
+      htmlAttrs: { lang: 'en-GB' },
+      title: 'Floatwise',
+      meta: [
+        { name: 'viewport', content: 'width=device-width, initial-scale=1, viewport-fit=cover' },
+        { name: 'description', content: 'Floatwise: floats checked, rows planned, and your place kept at the knitting machine.' },
+        { name: 'theme-color', content: '#1f4e5f' },
+      ],
+    },
+  },
+  runtimeConfig: {
+    // Overridden at run time by NUXT_* variables; scripts/start.mjs sets them.
+    mailFrom: 'Floatwise <no-reply@floatwise.test>',
+    smtpUrl: '',
+    mailCaptureDir: '',
+    // Only the server needs these; the app shell is prerendered, so public values would freeze at build time.
+    appUrl: 'http://localhost:3000',
+    devMail: false,
+  },
+  tailwindcss: {
+    cssPath: false,
+    configPath: 'tailwind.config.ts',
+  },
+  nitro: {
+    prerender: { routes: ['/'] },
+  },
+  typescript: { strict: true },
+  eslint: { config: { stylistic: false } },
+  pwa,
+})

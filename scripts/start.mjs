@@ -1,0 +1,56 @@
+#!/usr/bin/env node
+// `npm start`: set everything up on this machine and serve Floatwise on http://localhost:3000.
+import { dirname, join } from 'node:path'
+import { fileURLToPath } from 'node:url'
+import { ensureDependencies } from './lib/deps.mjs'
+import { log } from './lib/log.mjs'
+
+const root = join(dirname(fileURLToPath(import.meta.url)), '..')
+ensureDependencies(root)
+
+// Loaded after the dependencies are in place.
+const { prepareDatabase } = await import('./lib/setup.mjs')
+const { ensureBuild } = await import('./lib/build.mjs')
+const { startMailFake } = await import('./lib/mail-fake.mjs')
+const { start } = await import('./lib/run.mjs')
+
+const port = Number(process.env.PORT ?? 3000)
+const { env, stop: stopDatabase } = await prepareDatabase(root, { database: 'floatwise' })
+ensureBuild(root)
+
+let mail
+if (process.env.SMTP_URL) {
+  env.NUXT_SMTP_URL = process.env.SMTP_URL
+}
+else {
+  mail = await startMailFake(join(root, '.data/mail'), Number(process.env.FLOATWISE_MAIL_PORT ?? 2526))
+  Object.assign(env, { NUXT_SMTP_URL: mail.url, NUXT_MAIL_CAPTURE_DIR: join(root, '.data/mail'), NUXT_DEV_MAIL: 'true' })
+}
+
+const appUrl = process.env.NUXT_APP_URL ?? `http://localhost:${port}`
+const server = start(process.execPath, [join(root, '.output/server/index.mjs')], {
+  cwd: root,
+  env: { ...process.env, ...env, PORT: String(port), NUXT_APP_URL: appUrl },
+})
+
+log(`Floatwise is starting on ${appUrl}`)
+log('Demo sign-ins (password floatwise-demo): owner@floatwise.test, designer@floatwise.test, knitter@floatwise.test')
+if (mail) log(`Mail goes to the local fake: read it at ${appUrl}/dev/mail`)
+log('Press Ctrl-C to stop the app and the database.')
+
+let stopping = false
+async function shutdown(code = 0) {
+  if (stopping) return
+  stopping = true
+  server.kill('SIGTERM')
+  await new Promise(resolve => server.exitCode !== null ? resolve() : server.once('exit', resolve))
+  await mail?.close()
+  stopDatabase()
+  log('Stopped.')
+  process.exit(code)
+}
+process.on('SIGINT', () => shutdown(0))
+process.on('SIGTERM', () => shutdown(0))
+server.on('exit', (code) => {
+  if (!stopping) { log(`The app server stopped (exit ${code}).`); shutdown(code ?? 1) }
+})

@@ -1,0 +1,2 @@
+// A trivial route: readiness for the start script and the baseline for benchmarks.
+export default defineEventHandler(() => ({ ok: true }))

@@ -1,0 +1,20 @@
+import { Umzug, SequelizeStorage } from 'umzug'
+import type { Sequelize } from 'sequelize'
+import * as m0001 from './migrations/0001-accounts'
+import * as m0002 from './migrations/0002-studio-stock'
+
+// Listed by hand (no file glob) so the bundled server and scripts find the same set.
+// Append new migrations; never edit one that has shipped.
+const migrations = [
+  { name: '0001-accounts', ...m0001 },
+  { name: '0002-studio-stock', ...m0002 },
+]
+
+export function createMigrator(sequelize: Sequelize) {
+  return new Umzug({
+    migrations,
+    context: sequelize.getQueryInterface(),
+    storage: new SequelizeStorage({ sequelize, tableName: 'schema_migrations' }),
+    logger: undefined,
+  })
+}

@@ -1,0 +1,24 @@
+import type { Sequelize } from 'sequelize'
+import { User } from './user'
+import { Studio } from './studio'
+import { Membership } from './membership'
+import { Invitation } from './invitation'
+import { PasswordReset } from './passwordReset'
+import { SignInFailure } from './signInFailure'
+import { Machine } from './machine'
+import { Yarn } from './yarn'
+import { Motif } from './motif'
+
+export { User, Studio, Membership, Invitation, PasswordReset, SignInFailure, Machine, Yarn, Motif }
+
+const models = [User, Studio, Membership, Invitation, PasswordReset, SignInFailure, Machine, Yarn, Motif]
+
+/** Binds every model to one Sequelize instance (once per instance). */
+export function initModels(sequelize: Sequelize) {
+  for (const model of models) model.initModel(sequelize)
+  Membership.belongsTo(Studio, { foreignKey: 'studioId' })
+  Membership.belongsTo(User, { foreignKey: 'userId' })
+  Studio.hasMany(Membership, { foreignKey: 'studioId' })
+  User.hasMany(Membership, { foreignKey: 'userId' })
+  Invitation.belongsTo(Studio, { foreignKey: 'studioId' })
+}

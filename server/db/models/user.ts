@@ -1,0 +1,21 @@
+import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize'
+
+export class User extends Model<InferAttributes<User>, InferCreationAttributes<User>> {
+  declare id: CreationOptional<number>
+  declare email: string
+  declare name: string
+  declare passwordHash: string
+  declare createdAt: CreationOptional<Date>
+  declare updatedAt: CreationOptional<Date>
+
+  static initModel(sequelize: Sequelize) {
+    User.init({
+      id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
+      email: { type: DataTypes.STRING(254), allowNull: false, unique: true },
+      name: { type: DataTypes.STRING(120), allowNull: false },
+      passwordHash: { type: DataTypes.STRING(255), allowNull: false },
+      createdAt: DataTypes.DATE(3),
+      updatedAt: DataTypes.DATE(3),
+    }, { sequelize, tableName: 'users' })
+  }
+}

@@ -1,0 +1,10 @@
+// The session carries who the person is, never what they may do: roles are per studio
+// and looked up on the server for every request.
+declare module '#auth-utils' {
+  interface User {
+    id: number
+    email: string
+    name: string
+  }
+}
+export {}

@@ -1,0 +1,9 @@
+export const studioRoles = ['owner', 'designer', 'knitter'] as const
+export type StudioRole = typeof studioRoles[number]
+
+/** Higher rank can do everything a lower rank can (owner > designer > knitter). */
+export const roleRank: Record<StudioRole, number> = { knitter: 1, designer: 2, owner: 3 }
+
+export type Technique = 'together' | 'colour-by-colour'
+
+export interface StudioSummary { id: number; name: string; role: StudioRole; personal: boolean }

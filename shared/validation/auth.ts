@@ -1,0 +1,28 @@
+import { z } from 'zod'
+import { studioRoles } from '../types/studio'
+
+export const emailSchema = z.string().trim().toLowerCase().max(254).pipe(z.email('must be an e-mail address'))
+export const passwordSchema = z.string()
+  .min(10, 'must be at least 10 characters')
+  .max(200, 'must be at most 200 characters')
+export const nameSchema = z.string().trim().min(1, 'is required').max(120, 'must be at most 120 characters')
+const tokenSchema = z.string().regex(/^[A-Za-z0-9_-]{32,128}$/, 'is not a valid token')
+
+export const registerBody = z.object({ email: emailSchema, password: passwordSchema, name: nameSchema })
+export const loginBody = z.object({ email: emailSchema, password: z.string().min(1, 'is required').max(200) })
+export const resetRequestBody = z.object({ email: emailSchema })
+export const resetConfirmBody = z.object({ token: tokenSchema, password: passwordSchema })
+export const tokenParams = z.object({ token: tokenSchema })
+export const invitationAcceptBody = z.object({
+  // Needed only when the invited address has no account yet.
+  name: nameSchema.optional(),
+  password: passwordSchema.optional(),
+})
+
+export const idParam = z.coerce.number().int('must be a whole number').positive('must be a positive id').max(2 ** 31)
+export const studioParams = z.object({ studioId: idParam })
+export const memberParams = z.object({ studioId: idParam, userId: idParam })
+export const roleSchema = z.enum(studioRoles)
+export const inviteBody = z.object({ email: emailSchema, role: roleSchema })
+export const roleChangeBody = z.object({ role: roleSchema })
+export const studioCreateBody = z.object({ name: nameSchema })
