@@ -42,6 +42,7 @@ export default defineNuxtConfig({
     // Only the server needs these; the app shell is prerendered, so public values would freeze at build time.
     appUrl: 'http://localhost:3000',
     devMail: false,
+    trustProxy: false,
   },
   tailwindcss: {
     cssPath: false,

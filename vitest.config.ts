@@ -1,17 +1,40 @@
 import { defineConfig } from 'vitest/config'
 import { defineVitestProject } from '@nuxt/test-utils/config'
 
-// Four kinds of test, each its own project (see DEVELOPERS.md).
+// Four kinds of test, each its own project (DEVELOPERS.md says what goes where).
+// `bench` runs only through `npm run bench`.
+const bench = process.env.FLOATWISE_BENCH === '1'
+
 export default defineConfig({
   test: {
-    projects: [
-      {
-        test: {
-          name: 'unit',
-          include: ['tests/unit/**/*.test.ts'],
-          environment: 'node',
-        },
-      },
-    ],
+    projects: bench
+      ? [{ test: { name: 'bench', include: ['tests/bench/**/*.bench.ts'], environment: 'node', testTimeout: 600_000 } }]
+      : [
+          { test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node' } },
+          await defineVitestProject({
+            test: { name: 'nuxt', include: ['tests/nuxt/**/*.test.ts'], environment: 'nuxt' },
+          }),
+          {
+            test: {
+              name: 'integration',
+              include: ['tests/integration/**/*.test.ts'],
+              environment: 'node',
+              globalSetup: ['tests/support/globalServer.ts'],
+              testTimeout: 30_000,
+              hookTimeout: 60_000,
+            },
+          },
+          {
+            test: {
+              name: 'browser',
+              include: ['tests/browser/**/*.test.ts'],
+              environment: 'node',
+              globalSetup: ['tests/support/globalServer.ts'],
+              testTimeout: 60_000,
+              hookTimeout: 60_000,
+              fileParallelism: false,
+            },
+          },
+        ],
   },
 })

@@ -13,7 +13,6 @@ ensureDependencies(root)
 const { prepareDatabase } = await import('./lib/setup.mjs')
 const { ensureBuild } = await import('./lib/build.mjs')
 const { ensureChromium } = await import('./lib/chromium.mjs')
-const { run } = await import('./lib/run.mjs')
 const { spawnSync } = await import('node:child_process')
 
 ensureChromium()
@@ -47,7 +46,6 @@ let passed = 0, failed = 0, skipped = 0
 if (existsSync(results)) {
   const report = JSON.parse(readFileSync(results, 'utf8'))
   passed = report.numPassedTests
-  failed = report.numFailedTests + (report.numFailedTestSuites ?? 0) - (report.numFailedTests > 0 ? 0 : 0)
   skipped = report.numPendingTests + report.numTodoTests
   // A test file that fails to load has no tests to count: count the file.
   failed = report.numFailedTests + report.testResults.filter(f => f.status === 'failed' && f.assertionResults.length === 0).length

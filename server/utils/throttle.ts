@@ -8,7 +8,8 @@ const perAccount = 5
 const perAddress = 20
 
 export function clientAddress(event: H3Event) {
-  return getRequestIP(event, { xForwardedFor: true }) ?? 'unknown'
+  // X-Forwarded-For is believed only behind a proxy we run (NUXT_TRUST_PROXY=true): anyone can send it.
+  return getRequestIP(event, { xForwardedFor: String(useRuntimeConfig().trustProxy) === 'true' }) ?? 'unknown'
 }
 
 /** Throws 429 with Retry-After when either the account or the address has failed too often. */

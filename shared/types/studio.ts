@@ -7,3 +7,8 @@ export const roleRank: Record<StudioRole, number> = { knitter: 1, designer: 2, o
 export type Technique = 'together' | 'colour-by-colour'
 
 export interface StudioSummary { id: number; name: string; role: StudioRole; personal: boolean }
+
+export interface StudioMember { userId: number; name: string; email: string; role: StudioRole; since: string }
+export interface PendingInvitation { id: number; email: string; role: StudioRole; expiresAt: string }
+export interface StudioMembers { members: StudioMember[]; invitations: PendingInvitation[] }
+export interface InvitationView { studioName: string; role: StudioRole; email: string; hasAccount: boolean }

@@ -1,3 +1,4 @@
+import type { MotifFloatReport } from '../../../shared/types/motif'
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize'
 
 export class Motif extends Model<InferAttributes<Motif>, InferCreationAttributes<Motif>> {
@@ -8,7 +9,7 @@ export class Motif extends Model<InferAttributes<Motif>, InferCreationAttributes
   declare height: number
   declare cells: string
   declare published: CreationOptional<boolean>
-  declare floatReport: CreationOptional<unknown>
+  declare floatReport: CreationOptional<MotifFloatReport | null>
   declare createdBy: number | null
   declare updatedBy: number | null
   declare createdAt: CreationOptional<Date>

@@ -2,6 +2,7 @@ import { Hash } from '@adonisjs/hash'
 import { Scrypt } from '@adonisjs/hash/drivers/scrypt'
 import type { Sequelize } from 'sequelize'
 import { analyseFloats, chartFromRows } from '../../../shared/knitting'
+import type { MotifFloatReport } from '../../../shared/types/motif'
 import { Machine, Membership, Motif, Studio, User, Yarn } from '../models'
 
 // Invented demo data: a small studio on a salt marsh. Nothing here is real.
@@ -48,7 +49,7 @@ export function motifRecord(rows: string[]) {
     width: chart.width,
     height: chart.height,
     cells: Array.from(chart.cells).join(''),
-    floatReport: { maxFloat: report.maxFloat, verdict: report.verdict, longRows: report.longRows, unusedRows: report.rows.flatMap((r, i) => (r.unused === null ? [] : [i])) },
+    floatReport: { maxFloat: report.maxFloat, verdict: report.verdict, longRows: report.longRows, unusedRows: report.unusedRows } satisfies MotifFloatReport,
   }
 }
 

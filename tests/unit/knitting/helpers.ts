@@ -44,7 +44,7 @@ export function inputError(fn: () => unknown): KnittingInputError {
   try { fn() }
   catch (e) {
     if (e instanceof KnittingInputError) return e
-    throw new Error(`expected a KnittingInputError, got ${String(e)}`)
+    throw new Error(`expected a KnittingInputError, got ${String(e)}`, { cause: e })
   }
   throw new Error('expected a KnittingInputError, nothing was thrown')
 }

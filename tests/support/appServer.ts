@@ -1,0 +1,69 @@
+import { spawn, type ChildProcess } from 'node:child_process'
+import { mkdtempSync } from 'node:fs'
+import { createServer } from 'node:net'
+import { tmpdir } from 'node:os'
+import { join } from 'node:path'
+import { startMailFake } from '../../scripts/lib/mail-fake.mjs'
+
+export const root = process.env.FLOATWISE_ROOT ?? join(import.meta.dirname, '../..')
+
+export function freePort(): Promise<number> {
+  return new Promise((resolve, reject) => {
+    const s = createServer()
+    s.once('error', reject)
+    s.listen(0, '127.0.0.1', () => {
+      const { port } = s.address() as { port: number }
+      s.close(() => resolve(port))
+    })
+  })
+}
+
+/** The built server (.output) on a free port against DATABASE_URL, with its own mail fake. */
+export async function startAppServer(extraEnv: Record<string, string> = {}) {
+  if (!process.env.DATABASE_URL) throw new Error('DATABASE_URL is not set: run the tests through `npm test`')
+  const mailDir = mkdtempSync(join(tmpdir(), 'floatwise-mail-'))
+  const mail = await startMailFake(mailDir)
+  const port = await freePort()
+  const baseUrl = `http://127.0.0.1:${port}`
+  const env = {
+    ...process.env,
+    PORT: String(port),
+    HOST: '127.0.0.1',
+    NODE_ENV: 'production',
+    NUXT_SMTP_URL: mail.url,
+    NUXT_MAIL_CAPTURE_DIR: mailDir,
+    NUXT_DEV_MAIL: 'true',
+    NUXT_APP_URL: baseUrl,
+    NUXT_TRUST_PROXY: 'true', // lets each test sign in from its own address (see throttle.ts)
+    ...extraEnv,
+  }
+  let child: ChildProcess | undefined
+  let output = ''
+  async function start() {
+    child = spawn(process.execPath, [join(root, '.output/server/index.mjs')], { env, stdio: ['ignore', 'pipe', 'pipe'] })
+    child.stdout!.on('data', (d) => { output += d })
+    child.stderr!.on('data', (d) => { output += d })
+    for (let i = 0; i < 200; i++) {
+      if (child.exitCode !== null) throw new Error(`The app server exited:\n${output}`)
+      try {
+        if ((await fetch(`${baseUrl}/api/health`)).ok) return
+      }
+      catch { /* not listening yet */ }
+      await new Promise(r => setTimeout(r, 50))
+    }
+    throw new Error(`The app server did not answer:\n${output}`)
+  }
+  async function stop() {
+    if (!child || child.exitCode !== null) return
+    const exited = new Promise(r => child!.once('exit', r))
+    child.kill('SIGTERM')
+    await exited
+  }
+  await start()
+  return {
+    baseUrl, mailDir, port,
+    restart: async () => { await stop(); await start() },
+    close: async () => { await stop(); await mail.close() },
+    output: () => output,
+  }
+}

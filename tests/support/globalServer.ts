@@ -1,0 +1,17 @@
+import type { TestProject } from 'vitest/node'
+import { startAppServer } from './appServer'
+
+// One built server per test project that needs it; files reach it through inject().
+export default async function setup(project: TestProject) {
+  const server = await startAppServer()
+  project.provide('baseUrl', server.baseUrl)
+  project.provide('mailDir', server.mailDir)
+  return () => server.close()
+}
+
+declare module 'vitest' {
+  export interface ProvidedContext {
+    baseUrl: string
+    mailDir: string
+  }
+}
