@@ -1,4 +1,5 @@
 import { pwa } from './pwa.config'
+import { securityHeaders } from './security-headers'
 
 // srcDir is the project root: pages/, components/ … stand beside server/ and shared/.
 export default defineNuxtConfig({
@@ -47,6 +48,9 @@ export default defineNuxtConfig({
   tailwindcss: {
     cssPath: false,
     configPath: 'tailwind.config.ts',
+  },
+  routeRules: {
+    '/**': { headers: securityHeaders },
   },
   nitro: {
     prerender: { routes: ['/'] },

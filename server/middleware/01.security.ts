@@ -1,34 +1,9 @@
-// Security headers on every response, a body size limit, and a same-origin rule for
-// requests that change things (a cross-site form post carrying our cookie is refused).
+// A body size limit, and a same-origin rule for requests that change things (a cross-site
+// form post carrying our cookie is refused). The headers are route rules (security-headers.ts).
 const maxBodyBytes = 1024 * 1024
 const uploadBodyBytes = 6 * 1024 * 1024
 
-const contentSecurityPolicy = [
-  `default-src 'self'`,
-  // Nuxt writes its runtime config as an inline script in the app shell.
-  `script-src 'self' 'unsafe-inline'`,
-  `style-src 'self' 'unsafe-inline'`,
-  `img-src 'self' data: blob:`,
-  `font-src 'self' data:`,
-  `media-src 'self' data: blob:`,
-  `connect-src 'self'`,
-  `worker-src 'self'`,
-  `manifest-src 'self'`,
-  `object-src 'none'`,
-  `base-uri 'self'`,
-  `form-action 'self'`,
-  `frame-ancestors 'none'`,
-].join('; ')
-
 export default defineEventHandler((event) => {
-  setResponseHeaders(event, {
-    'Content-Security-Policy': contentSecurityPolicy,
-    'X-Content-Type-Options': 'nosniff',
-    'Referrer-Policy': 'same-origin',
-    'X-Frame-Options': 'DENY',
-    'Permissions-Policy': 'camera=(), microphone=(), geolocation=(), screen-wake-lock=(self)',
-    'Cross-Origin-Opener-Policy': 'same-origin',
-  })
   if (event.method === 'GET' || event.method === 'HEAD' || event.method === 'OPTIONS') return
 
   const origin = getRequestHeader(event, 'origin')

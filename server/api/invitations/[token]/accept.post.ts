@@ -4,7 +4,7 @@ import { Invitation, Membership, User } from '../../../db/models'
 
 // Single use: the invitation row is locked, checked and marked accepted in one transaction.
 export default defineEventHandler(async (event) => {
-  const { token } = await paramsValid(event, tokenParams)
+  const { token } = paramsValid(event, tokenParams)
   const body = await readValid(event, invitationAcceptBody)
   const session = await getUserSession(event)
   const user = await useDb().transaction(async (transaction) => {

@@ -4,7 +4,7 @@ import { Invitation, Studio, User } from '../../../db/models'
 
 // Anyone holding the link may read what it offers; the token itself is the secret.
 export default defineEventHandler(async (event) => {
-  const { token } = await paramsValid(event, tokenParams)
+  const { token } = paramsValid(event, tokenParams)
   const invitation = await Invitation.findOne({
     where: { tokenHash: hashLinkToken(token), acceptedAt: null, expiresAt: { [Op.gt]: new Date() } },
     include: [Studio],

@@ -4,7 +4,8 @@ import { Invitation, Studio } from '../../../db/models'
 const lifetimeMs = 7 * 24 * 60 * 60_000
 
 export default defineEventHandler(async (event) => {
-  const { studioId } = await paramsValid(event, studioParams)
+  await requireUser(event) // 401 before anything about the request is checked
+  const { studioId } = paramsValid(event, studioParams)
   const { user } = await requireStudioRole(event, studioId, 'owner')
   const body = await readValid(event, inviteBody)
   const studio = await Studio.findByPk(studioId)

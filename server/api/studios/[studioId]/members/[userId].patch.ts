@@ -1,7 +1,8 @@
 import { memberParams, roleChangeBody } from '../../../../../shared/validation/auth'
 
 export default defineEventHandler(async (event) => {
-  const { studioId, userId } = await paramsValid(event, memberParams)
+  await requireUser(event) // 401 before anything about the request is checked
+  const { studioId, userId } = paramsValid(event, memberParams)
   await requireStudioRole(event, studioId, 'owner')
   const { role } = await readValid(event, roleChangeBody)
   const member = await changeMemberRole(studioId, userId, role)

@@ -4,7 +4,8 @@ import { Invitation, Membership, User } from '../../../../db/models'
 
 // Members of a studio for any member; pending invitations only for owners.
 export default defineEventHandler(async (event) => {
-  const { studioId } = await paramsValid(event, studioParams)
+  await requireUser(event) // 401 before anything about the request is checked
+  const { studioId } = paramsValid(event, studioParams)
   const { membership } = await requireStudioRole(event, studioId)
   const rows = await Membership.findAll({ where: { studioId }, include: [User], order: [['createdAt', 'ASC']] })
   const members = rows.map((m) => {

@@ -1,0 +1,108 @@
+import { readdirSync, statSync } from 'node:fs'
+import { join, relative } from 'node:path'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import { apiClient, signedIn, uniqueEmail, type ApiClient } from '../support/api'
+import { linkIn, waitForMail } from '../support/mail'
+import { closeTestDb, fixturePassword, makeStudio, makeUser } from '../support/db'
+import { Membership } from '../../server/db/models'
+import { root } from '../support/appServer'
+
+/**
+ * Every API route × every kind of caller → the status the server must answer.
+ * A new route joins by adding a row; the last test fails while any route has none.
+ */
+type Who = 'anonymous' | 'knitter' | 'designer' | 'owner' | 'outsider'
+const everyone: Who[] = ['anonymous', 'knitter', 'designer', 'owner', 'outsider']
+type Fixture = Awaited<ReturnType<typeof makeStudio>>
+interface Call { method: string; path: string; body?: unknown }
+interface Row { route: string; call: (f: Fixture, who: Who) => Call | Promise<Call>; expect: Record<Who, number> }
+
+const same = (status: number): Record<Who, number> => ({ anonymous: status, knitter: status, designer: status, owner: status, outsider: status })
+const signedInOnly = (status: number): Record<Who, number> => ({ ...same(status), anonymous: 401 })
+const studioMember = (status: number): Record<Who, number> => ({ anonymous: 401, knitter: status, designer: status, owner: status, outsider: 404 })
+const studioOwner = (status: number): Record<Who, number> => ({ anonymous: 401, knitter: 403, designer: 403, owner: status, outsider: 404 })
+
+async function freshInvitation(f: Fixture) {
+  const owner = await signedIn(f.owner.email, fixturePassword)
+  const email = uniqueEmail('matrix-invite')
+  await owner.post(`/api/studios/${f.studio.id}/invitations`, { email, role: 'knitter' })
+  return linkIn(await waitForMail(email), '/invitations/').pathname.split('/').pop()!
+}
+
+async function spareMember(f: Fixture) {
+  const u = await makeUser('matrix-spare')
+  await Membership.create({ studioId: f.studio.id, userId: u.id, role: 'knitter' })
+  return u
+}
+
+export const roleMatrix: Row[] = [
+  { route: 'GET /api/health', call: () => ({ method: 'GET', path: '/api/health' }), expect: same(200) },
+  { route: 'GET /api/me', call: () => ({ method: 'GET', path: '/api/me' }), expect: signedInOnly(200) },
+  { route: 'POST /api/auth/register', call: () => ({ method: 'POST', path: '/api/auth/register', body: { email: uniqueEmail('matrix'), password: 'matrix-password', name: 'M' } }), expect: same(201) },
+  { route: 'POST /api/auth/login', call: f => ({ method: 'POST', path: '/api/auth/login', body: { email: f.knitter.email, password: fixturePassword } }), expect: same(200) },
+  { route: 'POST /api/auth/logout', call: () => ({ method: 'POST', path: '/api/auth/logout' }), expect: same(200) },
+  { route: 'POST /api/auth/password-reset', call: () => ({ method: 'POST', path: '/api/auth/password-reset', body: { email: uniqueEmail('matrix') } }), expect: same(202) },
+  { route: 'POST /api/auth/password-reset/confirm', call: () => ({ method: 'POST', path: '/api/auth/password-reset/confirm', body: { token: 'x'.repeat(43), password: 'matrix-password' } }), expect: same(400) },
+  { route: 'GET /api/dev/mail', call: () => ({ method: 'GET', path: '/api/dev/mail' }), expect: same(200) },
+  { route: 'GET /api/studios/[studioId]/members', call: f => ({ method: 'GET', path: `/api/studios/${f.studio.id}/members` }), expect: studioMember(200) },
+  { route: 'POST /api/studios/[studioId]/invitations', call: f => ({ method: 'POST', path: `/api/studios/${f.studio.id}/invitations`, body: { email: uniqueEmail('matrix'), role: 'knitter' } }), expect: studioOwner(201) },
+  {
+    route: 'PATCH /api/studios/[studioId]/members/[userId]',
+    call: async f => ({ method: 'PATCH', path: `/api/studios/${f.studio.id}/members/${(await spareMember(f)).id}`, body: { role: 'designer' } }),
+    expect: studioOwner(200),
+  },
+  {
+    route: 'DELETE /api/studios/[studioId]/members/[userId]',
+    call: async f => ({ method: 'DELETE', path: `/api/studios/${f.studio.id}/members/${(await spareMember(f)).id}` }),
+    expect: studioOwner(204),
+  },
+  { route: 'GET /api/invitations/[token]', call: async f => ({ method: 'GET', path: `/api/invitations/${await freshInvitation(f)}` }), expect: same(200) },
+  {
+    // The link is the secret; an address with no account gets one on accepting.
+    route: 'POST /api/invitations/[token]/accept',
+    call: async f => ({ method: 'POST', path: `/api/invitations/${await freshInvitation(f)}/accept`, body: { name: 'Matrix', password: 'matrix-password' } }),
+    expect: same(200),
+  },
+]
+
+let f: Fixture
+const clients = {} as Record<Who, ApiClient>
+beforeAll(async () => {
+  f = await makeStudio()
+  clients.anonymous = apiClient()
+  for (const who of ['knitter', 'designer', 'owner', 'outsider'] as const) clients[who] = await signedIn(f[who].email, fixturePassword)
+})
+afterAll(closeTestDb)
+
+describe('role matrix', () => {
+  const cases = roleMatrix.flatMap(row => everyone.map(who => ({ ...row, who, status: row.expect[who] })))
+  it.each(cases)('$route as $who → $status', async ({ call, who, status }) => {
+    const { method, path, body } = await call(f, who)
+    // A fresh client with the same cookie, so sign-out and sign-in rows do not change the shared ones.
+    const client = apiClient()
+    client.cookie = clients[who].cookie
+    const res = await client.request(method, path, body)
+    expect(res.status, JSON.stringify(res.body)).toBe(status)
+  })
+
+  it('has a row for every route in server/api', () => {
+    const apiDir = join(root, 'server/api')
+    const files: string[] = []
+    const walk = (dir: string) => {
+      for (const name of readdirSync(dir)) {
+        const path = join(dir, name)
+        if (statSync(path).isDirectory()) walk(path)
+        else if (name !== '[...].ts') files.push(relative(apiDir, path))
+      }
+    }
+    walk(apiDir)
+    const routes = files.map((file) => {
+      const [, path, method] = file.match(/^(.*?)\.(get|post|patch|put|delete)\.ts$/) ?? []
+      if (!method) return `unnamed method: ${file}`
+      return `${method.toUpperCase()} /api/${path!.replace(/(^|\/)index$/, '')}`.replace(/\/$/, '')
+    })
+    const covered = new Set(roleMatrix.map(r => r.route))
+    expect(routes.filter(r => !covered.has(r))).toEqual([])
+    expect([...covered].filter(r => !routes.includes(r))).toEqual([])
+  })
+})
