@@ -15,6 +15,13 @@ const { ensureBuild } = await import('./lib/build.mjs')
 const { ensureChromium } = await import('./lib/chromium.mjs')
 const { spawnSync } = await import('node:child_process')
 
+const { withCheckoutLock } = await import('./lib/lock.mjs')
+const { mkdirSync } = await import('node:fs')
+mkdirSync(join(root, '.data'), { recursive: true })
+const code = await withCheckoutLock(join(root, '.data/test.lock'), runEverything)
+process.exit(code)
+
+async function runEverything() {
 ensureChromium()
 const { env, stop } = await prepareDatabase(root, { database: 'floatwise_test', fresh: true })
 ensureBuild(root)
@@ -57,4 +64,5 @@ passed += checks.filter(c => c.ok).length
 failed += checks.filter(c => !c.ok).length
 if (vitest.status !== 0 && failed === 0) failed = 1
 console.log(`Tests: ${passed} passed, ${failed} failed${skipped ? `, ${skipped} skipped` : ''}`)
-process.exit(failed > 0 ? 1 : 0)
+return failed > 0 ? 1 : 0
+}
