@@ -1,0 +1,7 @@
+// The client's offline store and sync: framework-free, shared by the app and the service worker.
+export { openFloatwiseDb, getDeviceId, plainData, type FloatwiseDb, type OpenOptions } from './db'
+export { recordStep, resolveConflict, savePiece, readPieceState, StepError, type StepInput, type ClientClock, type PieceState } from './progress'
+export { createSyncer, type Syncer, type SyncerOptions, type SyncResult } from './sync'
+export { readSyncState, type SyncFailure, type SyncState, type SyncStatus } from './syncStore'
+export { backoffDelay } from './backoff'
+export type * from './types'
