@@ -1,9 +1,10 @@
+import { randomUUID } from 'node:crypto'
 import { readdirSync, statSync } from 'node:fs'
 import { join, relative } from 'node:path'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { apiClient, signedIn, uniqueEmail, type ApiClient } from '../support/api'
 import { linkIn, waitForMail } from '../support/mail'
-import { closeTestDb, fixturePassword, makeStudio, makeUser } from '../support/db'
+import { closeTestDb, fixturePassword, makeProject, makeStock, makeStudio, makeUser } from '../support/db'
 import { Membership } from '../../server/db/models'
 import { root } from '../support/appServer'
 
@@ -63,7 +64,52 @@ export const roleMatrix: Row[] = [
     call: async f => ({ method: 'POST', path: `/api/invitations/${await freshInvitation(f)}/accept`, body: { name: 'Matrix', password: 'matrix-password' } }),
     expect: same(200),
   },
+  { route: 'GET /api/projects', call: () => ({ method: 'GET', path: '/api/projects' }), expect: signedInOnly(200) },
+  {
+    // The knitter's own project: designers and owners of the studio see it too.
+    route: 'GET /api/projects/[id]',
+    call: async f => ({ method: 'GET', path: `/api/projects/${(await knittersProject(f)).project.id}` }),
+    expect: studioMember(200),
+  },
+  {
+    route: 'POST /api/projects',
+    call: async f => ({ method: 'POST', path: '/api/projects', body: await newProjectForm(f) }),
+    expect: studioMember(201),
+  },
+  { route: 'GET /api/pieces', call: () => ({ method: 'GET', path: '/api/pieces' }), expect: signedInOnly(200) },
+  {
+    route: 'GET /api/pieces/[id]',
+    call: async f => ({ method: 'GET', path: `/api/pieces/${(await knittersProject(f)).pieces[0]!.id}` }),
+    expect: studioMember(200),
+  },
+  {
+    route: 'GET /api/pieces/[id]/progress',
+    call: async f => ({ method: 'GET', path: `/api/pieces/${(await knittersProject(f)).pieces[0]!.id}/progress` }),
+    expect: studioMember(200),
+  },
+  {
+    // Anyone signed in may sync; a step on a piece that is not theirs comes back in `rejected`.
+    route: 'POST /api/sync',
+    call: async f => ({
+      method: 'POST', path: '/api/sync',
+      body: { deviceId: 'matrix-device', events: [{ id: randomUUID(), pieceId: (await knittersProject(f)).pieces[0]!.id, kind: 'advance', from: 0, to: 1, version: 0, at: new Date().toISOString() }] },
+    }),
+    expect: signedInOnly(200),
+  },
 ]
+
+function knittersProject(f: Fixture) {
+  return makeProject({ studioId: f.studio.id, knitterId: f.knitter.id, pieces: ['Back'] })
+}
+
+let stock: Awaited<ReturnType<typeof makeStock>> | undefined
+async function newProjectForm(f: Fixture) {
+  stock ??= await makeStock(f.studio.id)
+  return {
+    studioId: f.studio.id, name: 'Matrix jumper', motifId: stock.motif.id, borderBefore: 4, borderAfter: 2, chartRows: 8,
+    needles: 60, technique: 'together', mainYarnId: stock.main.id, contrastYarnId: stock.contrast.id, pieces: [{ name: 'Back' }],
+  }
+}
 
 let f: Fixture
 const clients = {} as Record<Who, ApiClient>

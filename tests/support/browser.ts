@@ -1,0 +1,53 @@
+import { mkdirSync } from 'node:fs'
+import { join } from 'node:path'
+import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core'
+import { inject } from 'vitest'
+import { root } from './appServer'
+
+// Debian's chromium, driven by playwright-core (no browser download of its own).
+const flags = ['--headless', '--no-sandbox', '--disable-gpu', '--disable-quic', '--no-first-run',
+  '--disable-background-networking', '--disable-component-update', '--disable-sync']
+
+export const screenshotDir = join(root, 'test-results/screenshots')
+
+export function launchBrowser(): Promise<Browser> {
+  return chromium.launch({ executablePath: process.env.CHROMIUM_PATH ?? '/usr/bin/chromium', args: flags })
+}
+
+export const tablet = {
+  landscape: { width: 1180, height: 820 },
+  portrait: { width: 820, height: 1180 },
+}
+
+export async function newTabletContext(browser: Browser, orientation: keyof typeof tablet = 'landscape', options: { dark?: boolean } = {}) {
+  return browser.newContext({
+    baseURL: inject('baseUrl'),
+    viewport: tablet[orientation],
+    deviceScaleFactor: 1,
+    hasTouch: true,
+    colorScheme: options.dark ? 'dark' : 'light',
+  })
+}
+
+export async function signIn(page: Page, email: string, password = 'floatwise-demo') {
+  if (!new URL(page.url()).pathname.startsWith('/login')) await page.goto('/login')
+  await page.waitForSelector('[data-test="login-form"]')
+  await page.fill('[data-test="field-email"]', email)
+  await page.fill('[data-test="field-password"]', password)
+  await page.click('[data-test="login-submit"]')
+}
+
+export async function screenshot(page: Page, name: string) {
+  mkdirSync(screenshotDir, { recursive: true })
+  const path = join(screenshotDir, `${name}.png`)
+  await page.screenshot({ path, fullPage: false })
+  return path
+}
+
+/** Collects page errors and failed same-origin requests, so a test can say none happened. */
+export function watchForErrors(context: BrowserContext) {
+  const errors: string[] = []
+  context.on('weberror', e => errors.push(`page error: ${e.error().message}`))
+  context.on('console', (m) => { if (m.type() === 'error') errors.push(`console: ${m.text()}`) })
+  return errors
+}
