@@ -8,10 +8,13 @@ import { SignInFailure } from './signInFailure'
 import { Machine } from './machine'
 import { Yarn } from './yarn'
 import { Motif } from './motif'
+import { Project } from './project'
+import { Piece } from './piece'
+import { RowEvent } from './rowEvent'
 
-export { User, Studio, Membership, Invitation, PasswordReset, SignInFailure, Machine, Yarn, Motif }
+export { User, Studio, Membership, Invitation, PasswordReset, SignInFailure, Machine, Yarn, Motif, Project, Piece, RowEvent }
 
-const models = [User, Studio, Membership, Invitation, PasswordReset, SignInFailure, Machine, Yarn, Motif]
+const models = [User, Studio, Membership, Invitation, PasswordReset, SignInFailure, Machine, Yarn, Motif, Project, Piece, RowEvent]
 
 /** Binds every model to one Sequelize instance (once per instance). */
 export function initModels(sequelize: Sequelize) {
@@ -21,4 +24,8 @@ export function initModels(sequelize: Sequelize) {
   Studio.hasMany(Membership, { foreignKey: 'studioId' })
   User.hasMany(Membership, { foreignKey: 'userId' })
   Invitation.belongsTo(Studio, { foreignKey: 'studioId' })
+  Project.hasMany(Piece, { foreignKey: 'projectId', as: 'pieces' })
+  Project.belongsTo(User, { foreignKey: 'knitterId', as: 'knitter' })
+  Piece.belongsTo(Project, { foreignKey: 'projectId', as: 'project' })
+  RowEvent.belongsTo(Piece, { foreignKey: 'pieceId' })
 }

@@ -1,0 +1,140 @@
+// Projects, pieces and the row timeline a knitter follows at the machine; the shapes the
+// API answers with. Times are ISO strings (UTC) as they arrive in JSON.
+
+/** A yarn slot letter: 'A' is the main colour, then 'B', 'C' … */
+export type YarnSlot = string
+
+/** Each slot is shown with a symbol as well as its colour (never colour alone), in slot order. */
+export const slotSymbols = ['●', '▲', '■', '◆', '★', '✚'] as const
+
+export interface SlotYarn { slot: YarnSlot; name: string; hex: string; symbol: string }
+
+export type PieceSection =
+  | { kind: 'plain'; label: string; rows: number; yarn: YarnSlot; note?: string }
+  | {
+    kind: 'motif'; label: string; motifName: string
+    /** chartToRows format ('.' main, 'x' contrast); rows[0] is the first row knitted. */
+    chart: string[]
+    chartRows: number; main: YarnSlot; contrast: YarnSlot; note?: string
+  }
+
+/** Everything needed to compile and show one piece's rows; frozen when the project is made. */
+export interface PieceTimeline {
+  technique: 'together' | 'colour-by-colour'
+  passesPerColour: number
+  needles: number
+  sections: PieceSection[]
+  yarns: SlotYarn[]
+}
+
+export const projectStatuses = ['planned', 'knitting', 'finished'] as const
+export type ProjectStatus = typeof projectStatuses[number]
+
+export const rowEventKinds = ['advance', 'back', 'jump'] as const
+export type RowEventKind = typeof rowEventKinds[number]
+export type RowEventOutcome = 'applied' | 'conflict' | 'rejected'
+
+/** The yarn chosen for a slot, kept on the project (yarnId null when it is not from stock). */
+export interface ProjectYarn extends SlotYarn { yarnId: number | null }
+
+/** What the project keeps of how it was made, so later edits of a motif or plan never move a row. */
+export interface ProjectPlanSnapshot {
+  source: 'new-project-form' | 'demo' | 'fixture'
+  motif: { id: number | null; name: string } | null
+  pieces: { name: string; timeline: PieceTimeline }[]
+}
+
+export interface ProjectSummary {
+  id: number
+  studioId: number
+  name: string
+  status: ProjectStatus
+  knitter: { id: number; name: string }
+  pieceCount: number
+  piecesDone: number
+  completedRows: number
+  totalRows: number
+  lastKnittedAt: string | null
+  updatedAt: string
+}
+
+export interface ProjectPiece {
+  id: number
+  name: string
+  position: number
+  completedRows: number
+  totalRows: number
+  version: number
+  lastKnittedAt: string | null
+  finishedAt: string | null
+}
+
+export interface ProjectDetail extends ProjectSummary {
+  machineId: number | null
+  yarns: ProjectYarn[]
+  notes: string
+  startedAt: string | null
+  finishedAt: string | null
+  pieces: ProjectPiece[]
+}
+
+/** GET /api/pieces: the signed-in knitter's pieces, most recently knitted first. */
+export interface KnitterPiece {
+  id: number
+  projectId: number
+  projectName: string
+  name: string
+  position: number
+  completedRows: number
+  totalRows: number
+  version: number
+  lastKnittedAt: string | null
+  finishedAt: string | null
+}
+
+export interface PieceDetail {
+  id: number
+  projectId: number
+  projectName: string
+  name: string
+  position: number
+  completedRows: number
+  totalRows: number
+  version: number
+  updatedAt: string
+  lastKnittedAt: string | null
+  finishedAt: string | null
+  timeline: PieceTimeline
+  /** The next unfinished piece of the same project (after this one, else the first before it). */
+  nextPieceId: number | null
+}
+
+export interface PieceProgress { completedRows: number; version: number; updatedAt: string }
+
+/** Another device moved the piece on while this one built on an older place. */
+export interface SyncConflict {
+  /** The device whose step set the piece's current place. */
+  deviceId: string | null
+  /** The piece's current completed rows (the server's place). */
+  theirs: number
+  /** Where this device's conflicting step wanted to go. */
+  ours: number
+}
+
+export interface SyncPieceState {
+  id: number
+  completedRows: number
+  totalRows: number
+  version: number
+  updatedAt: string
+  lastKnittedAt: string | null
+  conflict: SyncConflict | null
+}
+
+export interface SyncAnswer {
+  /** Stored (now or before): the device may drop these from its outbox. */
+  accepted: string[]
+  /** Not stored, with why (e.g. not your piece); the device should drop them too. */
+  rejected: { id: string; reason: string }[]
+  pieces: SyncPieceState[]
+}

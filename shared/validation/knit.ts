@@ -1,0 +1,58 @@
+import { z } from 'zod'
+import { MAX_PLAN_ROWS } from '../knitting/plan'
+import { rowEventKinds } from '../types/knit'
+import { idParam, nameSchema } from './auth'
+
+const id = z.number('must be a number').int('must be a whole number').positive('must be a positive id').max(2 ** 31)
+const count = (min: number, max: number) => z.number('must be a number').int('must be a whole number')
+  .min(min, `must be at least ${min}`).max(max, `must be at most ${max}`)
+
+export const idParams = z.object({ id: idParam })
+
+/** The small "new project" form (until the planner exists): one motif between two plain borders. */
+export const newProjectBody = z.object({
+  studioId: id,
+  name: nameSchema,
+  motifId: id,
+  borderBefore: count(0, MAX_PLAN_ROWS),
+  borderAfter: count(0, MAX_PLAN_ROWS),
+  chartRows: count(1, MAX_PLAN_ROWS),
+  needles: count(1, 1000),
+  technique: z.enum(['together', 'colour-by-colour'], 'must be "together" or "colour-by-colour"'),
+  passesPerColour: count(1, 4).optional(),
+  mainYarnId: id,
+  contrastYarnId: id,
+  machineId: id.nullable().optional(),
+  pieces: z.array(z.object({ name: nameSchema }), 'must be a list of pieces')
+    .min(1, 'at least one piece').max(12, 'at most 12 pieces'),
+  notes: z.string().max(5000, 'must be at most 5000 characters').optional(),
+}).refine(b => b.mainYarnId !== b.contrastYarnId, { path: ['contrastYarnId'], message: 'must be a different yarn from the main yarn' })
+export type NewProjectBody = z.infer<typeof newProjectBody>
+
+/** Only the studio, read first so the role check comes before the rest of the form is judged. */
+export const studioRef = z.object({ studioId: id })
+
+export const deviceIdSchema = z.string('must be text').regex(/^[A-Za-z0-9_-]{8,64}$/, 'must be 8–64 letters, digits, "_" or "-"')
+const rowCount = count(0, MAX_PLAN_ROWS)
+
+export const rowEventSchema = z.object({
+  // Stored lower-case: the id column compares without case, so 'A…' and 'a…' are one event.
+  id: z.uuid('must be a UUID').transform(s => s.toLowerCase()),
+  pieceId: id,
+  kind: z.enum(rowEventKinds, 'must be "advance", "back" or "jump"'),
+  from: rowCount,
+  to: rowCount,
+  version: count(0, 2 ** 31 - 1),
+  at: z.iso.datetime({ offset: true, error: 'must be an ISO date-time' }),
+})
+export type RowEventInput = z.infer<typeof rowEventSchema>
+
+export const MAX_SYNC_EVENTS = 500
+
+export const syncBody = z.object({
+  deviceId: deviceIdSchema,
+  events: z.array(rowEventSchema, 'must be a list of row events').max(MAX_SYNC_EVENTS, `at most ${MAX_SYNC_EVENTS} events per request`).default([]),
+  /** Pieces whose authoritative place the device wants to hear about even with no events. */
+  pieceIds: z.array(id, 'must be a list of piece ids').max(100, 'at most 100 pieces').optional(),
+})
+export type SyncBody = z.infer<typeof syncBody>
