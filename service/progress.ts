@@ -1,4 +1,5 @@
 import { plainData, type FloatwiseDb } from './db'
+import { isUnresolved } from './syncStore'
 import type { CachedPiece, LocalProgress, PieceDetail, RowEvent, StepKind } from './types'
 
 /** A step the knit view must not record; the message is written for the knitter. */
@@ -32,11 +33,14 @@ function checkStep(step: StepInput, from: number) {
 }
 
 /**
- * The version a new event builds on: the server's last version plus one for each of this
- * piece's events still queued, because the server will have applied those first.
+ * The version a new step builds on. While a conflict waits for the knitter, the server takes
+ * no step of this device on the piece except the knitter's jump, so a held step simply names
+ * the server's version it saw; otherwise steps chain on the ones queued before them.
  */
-async function nextVersion(db: FloatwiseDb, current: LocalProgress) {
-  return current.serverVersion + await db.outbox.where('pieceId').equals(current.pieceId).count()
+function versionFor(current: LocalProgress) {
+  return isUnresolved(current)
+    ? { version: current.serverVersion, nextVersion: current.nextVersion }
+    : { version: current.nextVersion, nextVersion: current.nextVersion + 1 }
 }
 
 /**
@@ -50,9 +54,10 @@ export async function recordStep(db: FloatwiseDb, pieceId: number, step: StepInp
     if (!current) throw new StepError(`Piece ${pieceId} is not on this device yet: open it once while online.`)
     checkStep(input, current.completedRows)
     const { id, at } = stamp(clock)
-    const event: RowEvent = { id, pieceId, kind: input.kind, from: current.completedRows, to: input.to, version: await nextVersion(db, current), at }
+    const { version, nextVersion } = versionFor(current)
+    const event: RowEvent = { id, pieceId, kind: input.kind, from: current.completedRows, to: input.to, version, at }
     await db.outbox.add({ ...event })
-    const progress: LocalProgress = { ...current, completedRows: input.to, updatedAt: at }
+    const progress: LocalProgress = { ...current, completedRows: input.to, nextVersion, updatedAt: at }
     await db.progress.put(progress)
     return { event, progress }
   })
@@ -70,11 +75,13 @@ export async function resolveConflict(db: FloatwiseDb, pieceId: number, keep: 'o
     if (!current?.conflict) throw new StepError(`Piece ${pieceId} has no conflict to resolve.`)
     const to = keep === 'ours' ? current.completedRows : current.conflict.theirs
     const { id, at } = stamp(clock)
-    // Built on the server's current version. Steps made while the conflict was open were held
-    // back by the syncer and go first, each building on the one before, so they count too.
-    const event: RowEvent = { id, pieceId, kind: 'jump', from: current.completedRows, to, version: await nextVersion(db, current), at }
+    // Built on the server's current version; steps held during the conflict go first and are
+    // logged as conflicts, so they do not count. A second choice before the server confirmed
+    // the first chains on it like any step.
+    const version = isUnresolved(current) ? current.serverVersion : current.nextVersion
+    const event: RowEvent = { id, pieceId, kind: 'jump', from: current.completedRows, to, version, at }
     await db.outbox.add({ ...event })
-    const progress: LocalProgress = { ...current, completedRows: to, resolvingWith: id, updatedAt: at }
+    const progress: LocalProgress = { ...current, completedRows: to, nextVersion: version + 1, resolvingWith: id, updatedAt: at }
     await db.progress.put(progress)
     return { event, progress }
   })
@@ -90,7 +97,7 @@ export async function savePiece(db: FloatwiseDb, detail: PieceDetail, clock: Cli
     await db.pieces.put(piece)
     const current = await db.progress.get(piece.id)
     const queued = await db.outbox.where('pieceId').equals(piece.id).count()
-    const fromServer = { serverRows: piece.completedRows, serverVersion: piece.version, updatedAt: piece.savedAt }
+    const fromServer = { serverRows: piece.completedRows, serverVersion: piece.version, nextVersion: piece.version, updatedAt: piece.savedAt }
     let progress: LocalProgress
     if (!current) progress = { pieceId: piece.id, completedRows: piece.completedRows, conflict: null, resolvingWith: null, ...fromServer }
     else if (queued === 0 && piece.version >= current.serverVersion) {

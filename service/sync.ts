@@ -83,7 +83,7 @@ export function createSyncer(options: SyncerOptions) {
       if (batch.length === 0) return result
       const answer = await post({ deviceId, events: batch.map(toEvent) })
       if (!answer.ok) return { ...result, ok: false, error: { ...answer.error, at: now().toISOString() } }
-      await applySyncAnswer(db, answer.answer, now().toISOString())
+      await applySyncAnswer(db, answer.answer, now().toISOString(), batch)
       const moved = answer.answer.accepted.length + (answer.answer.rejected?.length ?? 0)
       result.batches += 1
       result.accepted += answer.answer.accepted.length

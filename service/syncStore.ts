@@ -1,5 +1,5 @@
 import { readMeta, writeMeta, type FloatwiseDb } from './db'
-import type { LocalProgress, SyncResponse } from './types'
+import type { LocalProgress, OutboxEntry, SyncResponse } from './types'
 
 export type SyncStatus = 'synced' | 'offline' | 'pending' | 'conflict'
 
@@ -48,10 +48,15 @@ export async function countSendable(db: FloatwiseDb): Promise<number> {
  * leave the outbox, and each answered piece takes the server's place unless this device is
  * ahead (events still queued) or has an open conflict (the knitter chooses; no silent overwrite).
  */
-export async function applySyncAnswer(db: FloatwiseDb, answer: SyncResponse, at: string): Promise<void> {
+export async function applySyncAnswer(db: FloatwiseDb, answer: SyncResponse, at: string, sent: OutboxEntry[] = []): Promise<void> {
   const done = [...answer.accepted, ...(answer.rejected ?? []).map(r => r.id)]
+  // Deleting by primary key is far cheaper than an `anyOf` walk over the id index.
+  const seqById = new Map(sent.map(e => [e.id, e.seq!]))
+  const bySeq = done.flatMap(id => seqById.has(id) ? [seqById.get(id)!] : [])
+  const byId = done.filter(id => !seqById.has(id))
   await db.transaction('rw', db.progress, db.outbox, db.meta, async () => {
-    if (done.length) await db.outbox.where('id').anyOf(done).delete()
+    if (bySeq.length) await db.outbox.bulkDelete(bySeq)
+    if (byId.length) await db.outbox.where('id').anyOf(byId).delete()
     for (const piece of answer.pieces) {
       const current = await db.progress.get(piece.id)
       // Answers to concurrent requests can land out of order; an older one never wins.
@@ -59,21 +64,28 @@ export async function applySyncAnswer(db: FloatwiseDb, answer: SyncResponse, at:
       const queued = await db.outbox.where('pieceId').equals(piece.id).count()
       let conflict = current?.conflict ?? null
       let resolvingWith = current?.resolvingWith ?? null
+      const choiceQueued = resolvingWith !== null && await db.outbox.where('id').equals(resolvingWith).count() > 0
       if (piece.conflict) {
         conflict = piece.conflict
-        resolvingWith = null
+        // Still reported while the knitter's jump is on its way (held steps went first);
+        // reported after the jump landed, it is a new conflict: the other device moved again.
+        if (!choiceQueued) resolvingWith = null
       }
-      else if (resolvingWith && await db.outbox.where('id').equals(resolvingWith).count() === 0) {
-        // The resolving jump was accepted and the server reports no conflict: settled.
+      else if (resolvingWith !== null && !choiceQueued) {
         conflict = null
         resolvingWith = null
       }
-      const keepLocal = conflict !== null || queued > 0
+      const unresolved = conflict !== null && resolvingWith === null
+      // Local place and the version chain are kept while this device is ahead (events queued)
+      // or a conflict is open (the knitter chooses: no silent overwrite either way).
+      const keepLocal = current !== undefined && (conflict !== null || queued > 0)
+      const resetChain = current === undefined || queued === 0 || unresolved
       await db.progress.put({
         pieceId: piece.id,
-        completedRows: keepLocal && current ? current.completedRows : piece.completedRows,
+        completedRows: keepLocal ? current.completedRows : piece.completedRows,
         serverRows: piece.completedRows,
         serverVersion: piece.version,
+        nextVersion: resetChain ? piece.version : current.nextVersion,
         conflict,
         resolvingWith,
         updatedAt: at,

@@ -56,6 +56,12 @@ export interface LocalProgress {
   /** The last place and version the server reported. */
   serverRows: number
   serverVersion: number
+  /**
+   * The version the next live step builds on: the server's version plus one per step queued
+   * since, as the server applies them in order. Kept rather than counted from the outbox,
+   * because steps queued during a conflict will be logged as conflicts and move nothing.
+   */
+  nextVersion: number
   conflict: SyncConflict | null
   /** Id of the `jump` that resolves `conflict`, until the server confirms it. */
   resolvingWith: string | null

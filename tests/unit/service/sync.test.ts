@@ -4,9 +4,10 @@ import { deviceWithPiece, fakeSyncServer, type FakeSyncServer } from './helpers'
 
 async function advance(db: FloatwiseDb, count: number, totalRows = 10_000) {
   const ids: string[] = []
+  let row = (await readPieceState(db, 1)).progress!.completedRows
   for (let i = 0; i < count; i++) {
-    const { progress } = await readPieceState(db, 1)
-    ids.push((await recordStep(db, 1, { kind: 'advance', to: progress!.completedRows + 1, totalRows })).event.id)
+    const { event } = await recordStep(db, 1, { kind: 'advance', to: ++row, totalRows })
+    ids.push(event.id)
   }
   return ids
 }
