@@ -1,6 +1,5 @@
 import { randomUUID } from 'node:crypto'
-import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { inject } from 'vitest'
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { signedIn } from '../support/api'
 import { closeTestDb, fixturePassword, makeProject, makeStudio } from '../support/db'
 import { Piece, Project, RowEvent } from '../../server/db/models'

@@ -1,9 +1,11 @@
 import { Hash } from '@adonisjs/hash'
 import { Scrypt } from '@adonisjs/hash/drivers/scrypt'
-import type { Sequelize } from 'sequelize'
+import type { Sequelize, Transaction } from 'sequelize'
 import { analyseFloats, chartFromRows } from '../../../shared/knitting'
+import { borderedMotifTimeline, slotYarns } from '../../../shared/knit/timeline'
 import type { MotifFloatReport } from '../../../shared/types/motif'
-import { Machine, Membership, Motif, Studio, User, Yarn } from '../models'
+import { Machine, Membership, Motif, Piece, Project, RowEvent, Studio, User, Yarn } from '../models'
+import { insertProject } from '../projects'
 
 // Invented demo data: a small studio on a salt marsh. Nothing here is real.
 export const demoPassword = 'floatwise-demo'
@@ -65,12 +67,72 @@ export async function seedDemo(sequelize: Sequelize): Promise<'created' | 'prese
       await Membership.create({ studioId: studio.id, userId: user.id, role: account.role }, { transaction })
       people[account.role] = user
     }
-    for (const m of machines) await Machine.create({ studioId: studio.id, ...m }, { transaction })
-    for (const y of yarns) await Yarn.create({ studioId: studio.id, notes: '', ...y }, { transaction })
+    const machineRows: Machine[] = []
+    for (const m of machines) machineRows.push(await Machine.create({ studioId: studio.id, ...m }, { transaction }))
+    const yarnRows: Record<string, Yarn> = {}
+    for (const y of yarns) yarnRows[y.name] = await Yarn.create({ studioId: studio.id, notes: '', ...y }, { transaction })
+    const motifRows: Record<string, Motif> = {}
     for (const m of demoMotifs) {
       const designer = people.designer!.id
-      await Motif.create({ studioId: studio.id, name: m.name, published: m.published, createdBy: designer, updatedBy: designer, ...motifRecord(m.rows) }, { transaction })
+      motifRows[m.name] = await Motif.create({ studioId: studio.id, name: m.name, published: m.published, createdBy: designer, updatedBy: designer, ...motifRecord(m.rows) }, { transaction })
     }
+    await seedProjects({ studio, knitter: people.knitter!, machines: machineRows, yarns: yarnRows, motifs: motifRows }, transaction)
   })
   return 'created'
+}
+
+interface DemoStock { studio: Studio; knitter: User; machines: Machine[]; yarns: Record<string, Yarn>; motifs: Record<string, Motif> }
+
+/** A timeline of the demo motif `motif` in the two named yarns (main first). */
+function demoTimeline(stock: DemoStock, motif: string, yarnNames: [string, string], shape: { technique: 'together' | 'colour-by-colour'; needles: number; chartRows: number; before: number; after: number; labels: { before: string; after: string } }) {
+  const chosen = yarnNames.map(n => stock.yarns[n]!)
+  const slots = slotYarns(chosen)
+  return {
+    yarns: slots.map((y, i) => ({ ...y, yarnId: chosen[i]!.id })),
+    timeline: borderedMotifTimeline({
+      technique: shape.technique, passesPerColour: 2, needles: shape.needles, yarns: slots,
+      motif: { name: motif, chart: demoMotifs.find(m => m.name === motif)!.rows },
+      chartRows: shape.chartRows, borderBefore: shape.before, borderAfter: shape.after, labels: shape.labels,
+    }),
+  }
+}
+
+/** The knitter's place on a piece, as a tablet would have left it (with its row event in the log). */
+async function demoPlace(piece: Piece, completedRows: number, at: Date, eventId: string, transaction: Transaction) {
+  await RowEvent.create({
+    id: eventId, pieceId: piece.id, userId: (await Project.findByPk(piece.projectId, { transaction }))!.knitterId, deviceId: 'demo-workroom-tablet',
+    kind: 'jump', fromRows: 0, toRows: completedRows, version: 0, at, receivedAt: at, outcome: 'applied',
+  }, { transaction })
+  await piece.update({
+    completedRows, version: 1, lastDeviceId: 'demo-workroom-tablet', lastKnittedAt: at,
+    finishedAt: completedRows >= piece.totalRows ? at : null,
+  }, { transaction })
+}
+
+/** A jumper in progress (back done, front mid-motif, sleeves to come) and a small cushion not yet started. */
+async function seedProjects(stock: DemoStock, transaction: Transaction) {
+  const jumper = demoTimeline(stock, 'Marsh wave', ['Cream', 'Ink blue'], {
+    technique: 'together', needles: 120, chartRows: 96, before: 20, after: 10, labels: { before: 'Welt', after: 'Shoulder band' },
+  })
+  const project = await insertProject({
+    studioId: stock.studio.id, knitterId: stock.knitter.id, name: 'Marsh wave jumper', machineId: stock.machines[0]!.id,
+    motifId: stock.motifs['Marsh wave']!.id, motifName: 'Marsh wave', yarns: jumper.yarns, source: 'demo',
+    notes: 'Cream body, ink blue waves. Sleeves are knitted twice from the same timeline.',
+    pieces: ['Back', 'Front', 'Sleeve', 'Sleeve'].map(name => ({ name, timeline: jumper.timeline })),
+  }, transaction)
+  const [back, front] = await Piece.findAll({ where: { projectId: project.id }, order: [['position', 'ASC']], transaction })
+  const dayAgo = new Date(Date.now() - 24 * 3600_000)
+  await demoPlace(back!, back!.totalRows, new Date(dayAgo.getTime() - 2 * 24 * 3600_000), '6a3e1c52-4d7b-4f0e-9a61-0d5c2b7e8f01', transaction)
+  await demoPlace(front!, 47, dayAgo, '6a3e1c52-4d7b-4f0e-9a61-0d5c2b7e8f02', transaction)
+  await project.update({ status: 'knitting', startedAt: new Date(dayAgo.getTime() - 3 * 24 * 3600_000) }, { transaction })
+
+  const cushion = demoTimeline(stock, 'Lantern medallion', ['Moss', 'Cream'], {
+    technique: 'colour-by-colour', needles: 96, chartRows: 16, before: 8, after: 8, labels: { before: 'Lower border', after: 'Upper border' },
+  })
+  await insertProject({
+    studioId: stock.studio.id, knitterId: stock.knitter.id, name: 'Lantern cushion', machineId: stock.machines[1]!.id,
+    motifId: stock.motifs['Lantern medallion']!.id, motifName: 'Lantern medallion', yarns: cushion.yarns, source: 'demo',
+    notes: 'Mid-gauge bed, colour by colour, two passes per colour.',
+    pieces: [{ name: 'Cushion front', timeline: cushion.timeline }],
+  }, transaction)
 }

@@ -1,0 +1,9 @@
+import { idParams } from '../../../shared/validation/knit'
+
+// One piece with the timeline the knit view follows.
+export default defineEventHandler(async (event) => {
+  await requireUser(event) // 401 before anything about the request is checked
+  const { id } = paramsValid(event, idParams)
+  const { piece, project } = await requirePiece(event, id)
+  return pieceDetail(piece, project)
+})

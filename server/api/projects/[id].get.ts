@@ -1,0 +1,8 @@
+import { idParams } from '../../../shared/validation/knit'
+
+export default defineEventHandler(async (event) => {
+  await requireUser(event) // 401 before anything about the request is checked
+  const { id } = paramsValid(event, idParams)
+  const { project } = await requireProject(event, id)
+  return projectDetail(project)
+})

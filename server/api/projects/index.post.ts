@@ -1,0 +1,13 @@
+import { newProjectBody, studioRef } from '../../../shared/validation/knit'
+
+// The small "new project" form. Any member may start one; the creator knits it.
+export default defineEventHandler(async (event) => {
+  const user = await requireUser(event)
+  // The studio is checked before the rest of the form, so a stranger learns nothing from errors.
+  const { studioId } = await readValid(event, studioRef)
+  const { membership } = await requireStudioRole(event, studioId, 'knitter')
+  const body = await readValid(event, newProjectBody)
+  const id = await createProjectFromForm(body, user.id, membership.role)
+  setResponseStatus(event, 201)
+  return loadProjectDetail(id)
+})
