@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { signedIn, type ApiClient } from '../support/api'
 import { closeTestDb, fixturePassword, makeProject, makeStock, makeStudio } from '../support/db'
-import { Motif, Piece, Yarn } from '../../server/db/models'
+import { Motif, Piece, RowEvent, Yarn } from '../../server/db/models'
 
 let s: Awaited<ReturnType<typeof makeStudio>>
 let stock: Awaited<ReturnType<typeof makeStock>>
@@ -195,5 +195,31 @@ describe('snapshot isolation', () => {
     expect(after.timeline).toEqual(before.timeline)
     expect(after.totalRows).toBe(8)
     expect((await owner.get(`/api/projects/${made.body.id}`)).body.yarns[0].name).toBe('Fixture oat')
+  })
+})
+
+describe('demo data', () => {
+  it('the demo knitter has a jumper under way and a cushion not yet started', async () => {
+    const knitter = await signedIn('knitter@floatwise.test', 'floatwise-demo')
+    const projects = (await knitter.get('/api/projects')).body as any[]
+    const jumper = projects.find(p => p.name === 'Marsh wave jumper')
+    expect(jumper).toMatchObject({ status: 'knitting', pieceCount: 4, piecesDone: 1 })
+    const detail = (await knitter.get(`/api/projects/${jumper.id}`)).body
+    // Welt 20 + 96 chart rows (together) + shoulder band 10 = 126 machine rows per piece.
+    // Browser tests may knit the demo pieces on: the seeded places are read from the log.
+    expect(detail.pieces.map((p: any) => [p.name, p.totalRows])).toEqual([['Back', 126], ['Front', 126], ['Sleeve', 126], ['Sleeve', 126]])
+    expect(detail.pieces[0]).toMatchObject({ completedRows: 126, finishedAt: expect.any(String) })
+    const seeded = await RowEvent.findAll({ where: { pieceId: [detail.pieces[0].id, detail.pieces[1].id], deviceId: 'demo-workroom-tablet' }, order: [['seq', 'ASC']] })
+    expect(seeded.map(e => [e.pieceId, e.toRows, e.outcome])).toEqual([[detail.pieces[0].id, 126, 'applied'], [detail.pieces[1].id, 47, 'applied']])
+    expect(detail.yarns.map((y: any) => [y.slot, y.name, y.symbol])).toEqual([['A', 'Cream', '●'], ['B', 'Ink blue', '▲']])
+    const front = (await knitter.get(`/api/pieces/${detail.pieces[1].id}`)).body
+    expect(front.timeline.sections.map((s: any) => s.label)).toEqual(['Welt', 'Marsh wave', 'Shoulder band'])
+    expect(front.nextPieceId).toBe(detail.pieces[2].id)
+
+    const cushion = projects.find(p => p.name === 'Lantern cushion')
+    expect(cushion).toMatchObject({ status: 'planned', pieceCount: 1, totalRows: 8 + 16 * 4 + 8 })
+    const piece = (await knitter.get(`/api/projects/${cushion.id}`)).body.pieces[0]
+    const timeline = (await knitter.get(`/api/pieces/${piece.id}`)).body.timeline
+    expect(timeline).toMatchObject({ technique: 'colour-by-colour', passesPerColour: 2, yarns: [{ name: 'Moss' }, { name: 'Cream' }] })
   })
 })
