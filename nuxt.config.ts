@@ -33,6 +33,11 @@ export default defineNuxtConfig({
         { name: 'description', content: 'Floatwise: floats checked, rows planned, and your place kept at the knitting machine.' },
         { name: 'theme-color', content: '#1f4e5f' },
       ],
+      link: [
+        { rel: 'icon', type: 'image/png', href: '/favicon.png' },
+        { rel: 'apple-touch-icon', href: '/icons/apple-touch-icon.png' },
+        { rel: 'manifest', href: '/manifest.webmanifest' },
+      ],
     },
   },
   runtimeConfig: {

@@ -1,0 +1,100 @@
+import { recordStep, resolveConflict, savePiece, StepError, type CachedPiece, type LocalProgress } from '~~/service'
+import { compilePieceTimeline } from '~~/shared/knit/timeline'
+import { cuesForStep, knitPosition } from '~~/shared/knit/position'
+import { describeDuration, msPerRow, type PaceStep } from '~~/shared/knit/pace'
+import type { PieceDetail, PieceTimeline } from '~~/shared/types/knit'
+
+/**
+ * One piece at the machine: its timeline, the local place (IndexedDB, live), and the steps.
+ * A step is written to IndexedDB (event + place, one transaction) before the screen moves;
+ * the syncer sends it when it can.
+ */
+export function useKnitSession(pieceId: number) {
+  const { db, syncer, state: syncState } = useOfflineStore()
+  const settings = useKnitSettings()
+  const sound = useKnitSound(settings)
+  const loadError = ref('')
+  const stepError = ref('')
+  const busy = ref(false)
+
+  const piece = useLiveQuery(() => db.pieces.get(pieceId), undefined as CachedPiece | undefined).value
+  const progress = useLiveQuery(() => db.progress.get(pieceId), undefined as LocalProgress | undefined).value
+  const pending = useLiveQuery(() => db.outbox.where('pieceId').equals(pieceId).count(), 0).value
+
+  // Fetch the piece when online (and keep it for offline); otherwise use the kept copy.
+  async function load() {
+    loadError.value = ''
+    try {
+      const detail = await $fetch<PieceDetail>(`/api/pieces/${pieceId}`)
+      await savePiece(db, detail)
+      void syncer.refresh([pieceId])
+    }
+    catch (error) {
+      if (await db.pieces.get(pieceId)) return // offline or server away: the kept copy will do
+      loadError.value = describeApiError(error).message
+    }
+  }
+
+  const timeline = computed(() => piece.value?.timeline as PieceTimeline | undefined)
+  const compiled = computed(() => (timeline.value ? compilePieceTimeline(timeline.value) : null))
+  const completedRows = computed(() => progress.value?.completedRows ?? 0)
+  const position = computed(() => (timeline.value && compiled.value
+    ? knitPosition(timeline.value, compiled.value, completedRows.value, settings.step.value)
+    : null))
+
+  const paceKey = `fw-pace-${pieceId}`
+  const paceSteps = useLocalStorage<PaceStep[]>(paceKey, [])
+  const finishEstimate = computed(() => {
+    const perRow = msPerRow(paceSteps.value)
+    if (!position.value || perRow === null) return null
+    return describeDuration(perRow * (position.value.totalRows - position.value.completedRows))
+  })
+
+  async function move(kind: 'advance' | 'back' | 'jump', to: number) {
+    if (!compiled.value || busy.value) return
+    busy.value = true
+    stepError.value = ''
+    const before = completedRows.value
+    try {
+      await sound.unlock()
+      await recordStep(db, pieceId, { kind, to, totalRows: compiled.value.rows.length })
+      if (kind === 'advance') {
+        paceSteps.value = [...paceSteps.value.slice(-40), { at: Date.now(), rows: to - before }]
+        announce(before, to)
+      }
+      void syncer.nudge()
+    }
+    catch (error) {
+      stepError.value = error instanceof StepError ? error.message : 'This step could not be saved on the tablet. Try again.'
+    }
+    finally {
+      busy.value = false
+    }
+  }
+
+  function announce(before: number, after: number) {
+    if (!compiled.value || !timeline.value) return
+    const cues = cuesForStep(compiled.value, timeline.value, before, after, settings.ahead.value)
+    if (!cues.length) return
+    const next = knitPosition(timeline.value, compiled.value, after, settings.step.value)
+    const cue = cues[0]!
+    const spoken = cue === 'end'
+      ? 'Piece finished.'
+      : cue === 'change'
+        ? `Colour change in ${next.rowsToChange ?? 0} rows: ${next.nextYarns.map(y => y.name).join(' and ')}.`
+        : `New section: ${next.section?.label ?? ''}.`
+    sound.play(cue, spoken)
+  }
+
+  const total = computed(() => compiled.value?.rows.length ?? 0)
+  const advance = () => move('advance', Math.min(completedRows.value + settings.step.value, total.value))
+  const undo = () => move('back', Math.max(completedRows.value - settings.step.value, 0))
+  const jump = (to: number) => move('jump', to)
+
+  async function resolve(keep: 'ours' | 'theirs') {
+    await resolveConflict(db, pieceId, keep)
+    void syncer.nudge()
+  }
+
+  return { piece, progress, pending, position, compiled, timeline, completedRows, finishEstimate, syncState, settings, loadError, stepError, busy, load, advance, undo, jump, resolve, unlockSound: sound.unlock }
+}

@@ -1,0 +1,32 @@
+import type { Howl as HowlType } from 'howler'
+
+export type KnitCue = 'change' | 'section' | 'end'
+
+/**
+ * The knit view's sounds (public/sounds, made by scripts/make-sounds.mjs) and the optional
+ * spoken cue. Browsers only play sound after a tap, so the sounds load on the first one.
+ */
+export function useKnitSound(settings: ReturnType<typeof useKnitSettings>) {
+  let sounds: Record<KnitCue, HowlType> | null = null
+
+  async function unlock() {
+    if (sounds) return
+    const { Howl } = await import('howler')
+    const make = (name: KnitCue) => new Howl({ src: [`/sounds/${name}.wav`], preload: true, volume: 0.9 })
+    sounds = { change: make('change'), section: make('section'), end: make('end') }
+  }
+
+  function say(text: string) {
+    if (!settings.voice.value || typeof speechSynthesis === 'undefined') return
+    speechSynthesis.cancel()
+    speechSynthesis.speak(new SpeechSynthesisUtterance(text))
+  }
+
+  function play(cue: KnitCue, spoken?: string) {
+    if (!settings.sound.value) return
+    sounds?.[cue].play()
+    if (spoken) say(spoken)
+  }
+
+  return { unlock, play }
+}
