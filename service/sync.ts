@@ -1,7 +1,8 @@
 import { backoffCapMs, backoffDelay } from './backoff'
 import { getDeviceId, readMeta, writeMeta, type FloatwiseDb } from './db'
 import { applySyncAnswer, countSendable, heldPieceIds, readSyncState, type SyncFailure, type SyncState } from './syncStore'
-import type { OutboxEntry, RowEvent, SyncRequest, SyncResponse } from './types'
+import { postSync } from './syncHttp'
+import type { OutboxEntry, RowEvent, SyncRequest } from './types'
 
 export interface SyncerOptions {
   db: FloatwiseDb
@@ -23,13 +24,6 @@ export interface SyncResult {
   error: SyncFailure | null
 }
 
-type Answer = { ok: true; answer: SyncResponse } | { ok: false; error: Omit<SyncFailure, 'at'> }
-
-function isSyncResponse(body: unknown): body is SyncResponse {
-  const b = body as SyncResponse | null
-  return !!b && Array.isArray(b.accepted) && Array.isArray(b.pieces) && (b.rejected === undefined || Array.isArray(b.rejected))
-}
-
 function toEvent({ id, pieceId, kind, from, to, version, at }: OutboxEntry): RowEvent {
   return { id, pieceId, kind, from, to, version, at }
 }
@@ -46,31 +40,7 @@ export function createSyncer(options: SyncerOptions) {
   let timer: ReturnType<typeof setTimeout> | undefined
   const online = () => (typeof navigator !== 'undefined' && navigator.onLine === false ? false : undefined)
 
-  async function post(body: SyncRequest): Promise<Answer> {
-    let res: Response
-    try {
-      res = await fetchFn(`${baseUrl}/api/sync`, {
-        method: 'POST',
-        credentials: 'same-origin',
-        headers: { 'content-type': 'application/json', 'accept': 'application/json' },
-        body: JSON.stringify(body),
-      })
-    }
-    catch (e) {
-      return { ok: false, error: { kind: 'network', message: e instanceof Error ? e.message : String(e) } }
-    }
-    const text = await res.text().catch(() => '')
-    if (res.status === 401) return { ok: false, error: { kind: 'signed-out', status: 401, message: 'Signed out: sign in again to sync.' } }
-    if (!res.ok) {
-      const kind = res.status >= 500 ? 'server' : 'bad-request'
-      return { ok: false, error: { kind, status: res.status, message: text.slice(0, 500) || res.statusText } }
-    }
-    let parsed: unknown
-    try { parsed = JSON.parse(text) }
-    catch { /* handled below */ }
-    if (!isSyncResponse(parsed)) return { ok: false, error: { kind: 'server', status: res.status, message: 'The sync answer was not understood.' } }
-    return { ok: true, answer: parsed }
-  }
+  const post = (body: SyncRequest) => postSync(fetchFn, baseUrl, body)
 
   async function drain(): Promise<SyncResult> {
     const result: SyncResult = { ok: true, accepted: 0, rejected: 0, batches: 0, error: null }
@@ -140,19 +110,27 @@ export function createSyncer(options: SyncerOptions) {
 
   /** Pulls the server's place of pieces (e.g. one knitted on another device meanwhile). */
   async function refresh(pieceIds: number[]): Promise<SyncResult> {
-    const answer = await post({ deviceId: await getDeviceId(db), events: [], pieceIds })
-    const at = now().toISOString()
-    // A refresh tells about the network too, but leaves the flush's backoff alone.
-    if (!answer.ok) {
-      const error = { ...answer.error, at }
-      await writeMeta(db, 'lastError', error)
-      await publish()
-      return { ok: false, accepted: 0, rejected: 0, batches: 0, error }
+    const outcome = (error: SyncFailure | null): SyncResult => ({ ok: !error, accepted: 0, rejected: 0, batches: error ? 0 : 1, error })
+    // Never rejects: callers fire it and forget (`void syncer.refresh(…)`).
+    try {
+      const answer = await post({ deviceId: await getDeviceId(db), events: [], pieceIds })
+      const at = now().toISOString()
+      // A refresh tells about the network too, but leaves the flush's backoff alone.
+      if (!answer.ok) {
+        const error = { ...answer.error, at }
+        await writeMeta(db, 'lastError', error)
+        return outcome(error)
+      }
+      await applySyncAnswer(db, answer.answer, at)
+      if ((await readMeta<SyncFailure>(db, 'lastError'))?.kind === 'network') await writeMeta(db, 'lastError', null)
+      return outcome(null)
     }
-    await applySyncAnswer(db, answer.answer, at)
-    if ((await readMeta<SyncFailure>(db, 'lastError'))?.kind === 'network') await writeMeta(db, 'lastError', null)
-    await publish()
-    return { ok: true, accepted: 0, rejected: 0, batches: 1, error: null }
+    catch (e) {
+      return outcome({ kind: 'storage', message: e instanceof Error ? e.message : String(e), at: now().toISOString() })
+    }
+    finally {
+      await publish()
+    }
   }
 
   async function state(): Promise<SyncState> {

@@ -125,6 +125,33 @@ describe('failures', () => {
     expect(await syncer.state()).toMatchObject({ retryInMs: null, lastError: null, status: 'synced' })
   })
 
+  it('retries by itself after a failure once started (no window in node: timers only)', async () => {
+    const db = await deviceWithPiece()
+    const server = fakeSyncServer()
+    await advance(db, 2)
+    const states: SyncState[] = []
+    const syncer = createSyncer({ db, fetch: server.fetch, random: () => 0, onState: s => states.push(s) }) // first wait 500 ms
+    server.failures.push('network')
+    syncer.start()
+    await expect.poll(() => states.at(-1)?.status, { timeout: 3000 }).toBe('synced')
+    expect(server.requests).toHaveLength(2)
+    expect(states.map(s => s.status)).toEqual(['offline', 'synced'])
+    syncer.stop()
+  })
+
+  it('stops retrying when stopped', async () => {
+    const db = await deviceWithPiece()
+    const server = fakeSyncServer()
+    await advance(db, 1)
+    const syncer = createSyncer({ db, fetch: server.fetch, random: () => 0 })
+    server.failures.push('network')
+    syncer.start()
+    await expect.poll(() => server.requests.length).toBe(1)
+    syncer.stop()
+    await new Promise(r => setTimeout(r, 800))
+    expect(server.requests).toHaveLength(1)
+  })
+
   it('jitters each wait within its upper half and caps it at 60 s', () => {
     expect([1, 2, 3, 7, 8, 50].map(n => backoffDelay(n, () => 1))).toEqual([1000, 2000, 4000, 60_000, 60_000, 60_000])
     expect([1, 2, 7].map(n => backoffDelay(n, () => 0))).toEqual([500, 1000, 30_000])
