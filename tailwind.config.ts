@@ -46,7 +46,8 @@ export default {
         control: '0.75rem',
       },
       fontSize: {
-        huge: ['clamp(4rem, 14vw, 10rem)', { lineHeight: '1' }],
+        // The row pair at the machine: as large as the screen allows in either orientation.
+        huge: ['clamp(3.5rem, min(12vw, 12vh), 9rem)', { lineHeight: '1' }],
       },
     },
   },

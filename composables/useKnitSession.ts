@@ -55,8 +55,8 @@ export function useKnitSession(pieceId: number) {
     busy.value = true
     stepError.value = ''
     const before = completedRows.value
+    sound.unlock()
     try {
-      await sound.unlock()
       await recordStep(db, pieceId, { kind, to, totalRows: compiled.value.rows.length })
       if (kind === 'advance') {
         paceSteps.value = [...paceSteps.value.slice(-40), { at: Date.now(), rows: to - before }]

@@ -2,6 +2,7 @@
 // Floatwise's service worker: the app shell offline. A piece opened once can be knitted
 // with no network at all, after a reload, because every page is the same client-rendered
 // shell and the knitter's data is in IndexedDB (service/db.ts), not in this cache.
+import { clientsClaim } from 'workbox-core'
 import { cleanupOutdatedCaches, createHandlerBoundToURL, precacheAndRoute } from 'workbox-precaching'
 import { NavigationRoute, registerRoute } from 'workbox-routing'
 
@@ -9,6 +10,9 @@ declare const self: ServiceWorkerGlobalScope & { __WB_MANIFEST: (string | { url:
 
 precacheAndRoute(self.__WB_MANIFEST)
 cleanupOutdatedCaches()
+// The first install takes the open tab at once, so a piece opened once works offline
+// without a second visit; later versions wait for the knitter's yes (SKIP_WAITING).
+clientsClaim()
 
 // Every page navigation gets the prerendered shell ('/'), except the API and the mail fake.
 registerRoute(new NavigationRoute(createHandlerBoundToURL('/'), {

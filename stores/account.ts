@@ -5,7 +5,9 @@ interface Me { user: { id: number; email: string; name: string }; studios: Studi
 
 /** Who is signed in, their studios, and which studio the screens are looking at. */
 export const useAccountStore = defineStore('account', () => {
-  const me = ref<Me | null>(null)
+  // Kept on the device so a tablet that is offline still knows who is knitting; the server
+  // checks the session again on every request.
+  const me = useLocalStorage<Me | null>('fw-me', null, { serializer: { read: v => (v ? JSON.parse(v) : null), write: v => JSON.stringify(v) } })
   const chosenStudioId = useLocalStorage<number | null>('fw-studio', null)
 
   const studios = computed(() => me.value?.studios ?? [])
@@ -16,9 +18,12 @@ export const useAccountStore = defineStore('account', () => {
     ?? studios.value[0]
     ?? null)
 
+  /** Asks the server who is signed in; with no answer at all (offline) the kept one stands. */
   async function refresh() {
     try { me.value = await $fetch<Me>('/api/me') }
-    catch { me.value = null }
+    catch (error) {
+      if ((error as { statusCode?: number }).statusCode) me.value = null
+    }
     return me.value
   }
 

@@ -56,7 +56,8 @@ function sectionSpans(compiled: CompiledPlan, count: number) {
 
 function describeSection(s: PieceSection, rows: number, yarns: Map<string, SlotYarn>) {
   if (s.kind === 'plain') return `${s.label} · ${rows} rows in ${yarns.get(s.yarn)?.name ?? s.yarn}`
-  return `${s.label} · ${s.motifName} · ${rows} rows in ${yarns.get(s.main)?.name ?? s.main} and ${yarns.get(s.contrast)?.name ?? s.contrast}`
+  const name = s.label === s.motifName ? s.label : `${s.label} · ${s.motifName}`
+  return `${name} · ${rows} rows in ${yarns.get(s.main)?.name ?? s.main} and ${yarns.get(s.contrast)?.name ?? s.contrast}`
 }
 
 export function knitPosition(timeline: PieceTimeline, compiled: CompiledPlan, completedRows: number, step: 1 | 2 = 2): KnitPosition {
