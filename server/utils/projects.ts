@@ -159,7 +159,7 @@ export function fieldError(field: string, message: string) {
     statusCode: 400,
     statusMessage: 'Bad Request',
     message: `${field}: ${message}`,
-    data: { issues: [{ path: [field], message }] },
+    data: { issues: [{ path: field.split('.'), message }] },
   })
 }
 
