@@ -185,7 +185,7 @@ export function useMotifEditor(initialRows: string[], options: { historyLimit?: 
     beginStroke, paint, endStroke, undo, redo, load,
     invert: () => apply(invertChart(chart.value)),
     mirror: () => apply(mirrorChart(chart.value)),
-    shift: (right: number, up: number) => apply(shiftChart(chart.value, right, up)),
+    shiftBy: (right: number, up: number) => apply(shiftChart(chart.value, right, up)),
     resize: (width: number, height: number) => apply(resizeChart(chart.value, width, height)),
     fillRow: (row: number, colour: Colour) => apply(fillRow(chart.value, row, colour)),
     fillColumn: (col: number, colour: Colour) => apply(fillColumn(chart.value, col, colour)),
