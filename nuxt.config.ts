@@ -49,6 +49,9 @@ export default defineNuxtConfig({
     appUrl: 'http://localhost:3000',
     devMail: false,
     trustProxy: false,
+    // Where the original motif pictures are kept (NUXT_PICTURES_DIR); empty = the `pictures`
+    // storage mount below. Any unstorage driver can replace that mount (see README).
+    picturesDir: '',
   },
   tailwindcss: {
     cssPath: false,
@@ -59,6 +62,9 @@ export default defineNuxtConfig({
   },
   nitro: {
     prerender: { routes: ['/'] },
+    // Original motif pictures, keyed by motif id. The fs base is resolved against the
+    // server's working directory at run time; NUXT_PICTURES_DIR overrides it (server/plugins/pictures.ts).
+    storage: { pictures: { driver: 'fs', base: '.data/pictures' } },
   },
   typescript: { strict: true },
   eslint: { config: { stylistic: false } },

@@ -2,6 +2,8 @@
 // form post carrying our cookie is refused). The headers are route rules (security-headers.ts).
 const maxBodyBytes = 1024 * 1024
 const uploadBodyBytes = 6 * 1024 * 1024
+// Routes that take a picture (at most 5 MB, checked again by the route) in a multipart form.
+const uploadPaths = ['/api/motifs/from-picture', '/api/motifs/picture-preview']
 
 export default defineEventHandler((event) => {
   if (event.method === 'GET' || event.method === 'HEAD' || event.method === 'OPTIONS') return
@@ -18,7 +20,8 @@ export default defineEventHandler((event) => {
     throw createError({ statusCode: 403, message: 'Cross-site request refused' })
   }
 
-  const limit = event.path.startsWith('/api/uploads') ? uploadBodyBytes : maxBodyBytes
+  const path = event.path.split('?')[0]!
+  const limit = uploadPaths.includes(path) ? uploadBodyBytes : maxBodyBytes
   const length = Number(getRequestHeader(event, 'content-length') ?? 0)
   if (length > limit) throw createError({ statusCode: 413, message: `Request body too large (limit ${Math.round(limit / 1024)} KB)` })
 })

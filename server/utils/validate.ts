@@ -26,6 +26,11 @@ export function queryValid<T extends z.ZodType>(event: H3Event, schema: T) {
   return validate(schema, getQuery(event), 'Invalid query')
 }
 
+/** Any other input, e.g. the text fields of a multipart form. */
+export function inputValid<T extends z.ZodType>(schema: T, input: unknown, where = 'Invalid form') {
+  return validate(schema, input, where)
+}
+
 export function paramsValid<T extends z.ZodType>(event: H3Event, schema: T) {
   return validate(schema, getRouterParams(event, { decode: true }), 'Invalid route parameter')
 }

@@ -13,6 +13,4 @@ export interface PendingInvitation { id: number; email: string; role: StudioRole
 export interface StudioMembers { members: StudioMember[]; invitations: PendingInvitation[] }
 export interface InvitationView { studioName: string; role: StudioRole; email: string; hasAccount: boolean }
 
-/** A motif as listed for choosing (the library with paging and editing is its own screen). */
-export interface MotifListItem { id: number; name: string; width: number; height: number; published: boolean; verdict: string | null; maxFloat: [number, number] | null; updatedAt: string }
 export interface YarnListItem { id: number; name: string; hex: string; weightCategory: number; metresPer100g: number; gramsOnHand: number }

@@ -79,7 +79,8 @@ export const motifPatchBody = z.object({
 }).refine(b => b.name !== undefined || b.rows !== undefined || b.published !== undefined, { message: 'nothing to change: send name, rows or published' })
 export type MotifPatchBody = z.infer<typeof motifPatchBody>
 
-export const motifDuplicateBody = z.object({ name: nameSchema.optional() })
+/** The body may be left out: the copy is then named "<name> (copy)". */
+export const motifDuplicateBody = z.object({ name: nameSchema.optional() }).optional()
 
 export const motifExportQuery = z.object({
   format: z.enum(['json', 'csv', 'png'], 'must be json, csv or png').default('json'),

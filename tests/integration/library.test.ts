@@ -16,8 +16,8 @@ describe('motif and yarn lists', () => {
   it('knitters see published motifs only; designers see drafts too', async () => {
     const knitter = await signedIn(s.knitter.email, fixturePassword)
     const designer = await signedIn(s.designer.email, fixturePassword)
-    expect((await knitter.get(`/api/motifs?studioId=${s.studio.id}`)).body.map((m: { name: string }) => m.name)).toEqual(['Shown'])
-    expect((await designer.get(`/api/motifs?studioId=${s.studio.id}`)).body.map((m: { name: string }) => m.name)).toEqual(['Draft', 'Shown'])
+    expect((await knitter.get(`/api/motifs?studioId=${s.studio.id}`)).body.items.map((m: { name: string }) => m.name)).toEqual(['Shown'])
+    expect((await designer.get(`/api/motifs?studioId=${s.studio.id}`)).body.items.map((m: { name: string }) => m.name)).toEqual(['Draft', 'Shown'])
   })
 
   it('lists the yarn stock and refuses a missing or bad studio id with a 400 naming it', async () => {

@@ -5,7 +5,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { apiClient, signedIn, uniqueEmail, type ApiClient } from '../support/api'
 import { linkIn, waitForMail } from '../support/mail'
 import { closeTestDb, fixturePassword, makeProject, makeStock, makeStudio, makeUser } from '../support/db'
-import { Membership } from '../../server/db/models'
+import { Membership, Motif } from '../../server/db/models'
+import { motifRecord } from '../../server/db/motifs'
+import { chartPicture, pictureForm } from '../support/pictures'
 import { root } from '../support/appServer'
 
 /**
@@ -21,6 +23,7 @@ interface Row { route: string; call: (f: Fixture, who: Who) => Call | Promise<Ca
 const same = (status: number): Record<Who, number> => ({ anonymous: status, knitter: status, designer: status, owner: status, outsider: status })
 const signedInOnly = (status: number): Record<Who, number> => ({ ...same(status), anonymous: 401 })
 const studioMember = (status: number): Record<Who, number> => ({ anonymous: 401, knitter: status, designer: status, owner: status, outsider: 404 })
+const studioDesigner = (status: number): Record<Who, number> => ({ anonymous: 401, knitter: 403, designer: status, owner: status, outsider: 404 })
 const studioOwner = (status: number): Record<Who, number> => ({ anonymous: 401, knitter: 403, designer: 403, owner: status, outsider: 404 })
 
 async function freshInvitation(f: Fixture) {
@@ -57,6 +60,31 @@ export const roleMatrix: Row[] = [
     call: async f => ({ method: 'DELETE', path: `/api/studios/${f.studio.id}/members/${(await spareMember(f)).id}` }),
     expect: studioOwner(204),
   },
+  { route: 'GET /api/motifs', call: f => ({ method: 'GET', path: `/api/motifs?studioId=${f.studio.id}` }), expect: studioMember(200) },
+  { route: 'POST /api/motifs', call: f => ({ method: 'POST', path: '/api/motifs', body: { studioId: f.studio.id, name: 'Matrix motif', rows: ['x.', '.x'] } }), expect: studioDesigner(201) },
+  // A published motif each time: knitters see it, so their edits are refused (403), not hidden (404).
+  { route: 'GET /api/motifs/[id]', call: async f => ({ method: 'GET', path: `/api/motifs/${(await publishedMotif(f)).id}` }), expect: studioMember(200) },
+  { route: 'PATCH /api/motifs/[id]', call: async f => ({ method: 'PATCH', path: `/api/motifs/${(await publishedMotif(f)).id}`, body: { name: 'Renamed' } }), expect: studioDesigner(200) },
+  { route: 'DELETE /api/motifs/[id]', call: async f => ({ method: 'DELETE', path: `/api/motifs/${(await publishedMotif(f)).id}` }), expect: studioDesigner(204) },
+  { route: 'POST /api/motifs/[id]/duplicate', call: async f => ({ method: 'POST', path: `/api/motifs/${(await publishedMotif(f)).id}/duplicate` }), expect: studioDesigner(201) },
+  { route: 'GET /api/motifs/[id]/export', call: async f => ({ method: 'GET', path: `/api/motifs/${(await publishedMotif(f)).id}/export?format=csv` }), expect: studioMember(200) },
+  { route: 'GET /api/motifs/[id]/picture', call: async f => ({ method: 'GET', path: `/api/motifs/${await publishedPictureMotif(f)}/picture` }), expect: studioMember(200) },
+  {
+    route: 'POST /api/motifs/import',
+    call: f => ({ method: 'POST', path: '/api/motifs/import', body: { studioId: f.studio.id, format: 'csv', content: '0,1\n1,0\n' } }),
+    expect: studioDesigner(201),
+  },
+  {
+    route: 'POST /api/motifs/from-picture',
+    call: f => ({ method: 'POST', path: '/api/motifs/from-picture', body: pictureForm({ studioId: f.studio.id, name: 'Matrix picture', width: 2, height: 2 }, chartPicture(['x.', '.x'])) }),
+    expect: studioDesigner(201),
+  },
+  {
+    route: 'POST /api/motifs/picture-preview',
+    call: f => ({ method: 'POST', path: '/api/motifs/picture-preview', body: pictureForm({ studioId: f.studio.id, width: 2, height: 2 }, chartPicture(['x.', '.x'])) }),
+    expect: studioDesigner(200),
+  },
+  { route: 'GET /api/yarns', call: f => ({ method: 'GET', path: `/api/yarns?studioId=${f.studio.id}` }), expect: studioMember(200) },
   { route: 'GET /api/invitations/[token]', call: async f => ({ method: 'GET', path: `/api/invitations/${await freshInvitation(f)}` }), expect: same(200) },
   {
     // The link is the secret; an address with no account gets one on accepting.
@@ -97,6 +125,21 @@ export const roleMatrix: Row[] = [
     expect: signedInOnly(200),
   },
 ]
+
+function publishedMotif(f: Fixture) {
+  return Motif.create({ studioId: f.studio.id, name: 'Matrix published', published: true, createdBy: null, updatedBy: null, ...motifRecord(['x..', '.x.']) })
+}
+
+// Made once through the API (the designer uploads, then publishes), then read by everyone.
+let pictureMotifId: number | undefined
+async function publishedPictureMotif(f: Fixture) {
+  if (pictureMotifId) return pictureMotifId
+  const designer = await signedIn(f.designer.email, fixturePassword)
+  const made = await designer.post('/api/motifs/from-picture', pictureForm({ studioId: f.studio.id, name: 'Matrix picture', width: 2, height: 2 }, chartPicture(['x.', '.x'])))
+  await designer.patch(`/api/motifs/${made.body.id}`, { published: true })
+  pictureMotifId = made.body.id as number
+  return pictureMotifId
+}
 
 function knittersProject(f: Fixture) {
   return makeProject({ studioId: f.studio.id, knitterId: f.knitter.id, pieces: ['Back'] })

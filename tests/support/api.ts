@@ -12,15 +12,17 @@ export function apiClient(baseUrl = inject('baseUrl')) {
   let cookie = ''
   const address = `10.${(process.pid >> 8) & 255}.${process.pid & 255}.${(++addressCounter % 250) + 1}`
   async function request<T = any>(method: string, path: string, body?: unknown, headers: Record<string, string> = {}): Promise<ApiResponse<T>> {
+    // A form or raw bytes go as they are (fetch sets the multipart boundary itself).
+    const raw = body instanceof FormData || body instanceof Uint8Array
     const res = await fetch(baseUrl + path, {
       method,
       headers: {
         'x-forwarded-for': address,
         ...(cookie ? { cookie } : {}),
-        ...(body !== undefined && typeof body !== 'string' ? { 'content-type': 'application/json' } : {}),
+        ...(body !== undefined && typeof body !== 'string' && !raw ? { 'content-type': 'application/json' } : {}),
         ...headers,
       },
-      body: body === undefined ? undefined : typeof body === 'string' ? body : JSON.stringify(body),
+      body: body === undefined ? undefined : typeof body === 'string' || raw ? body as BodyInit : JSON.stringify(body),
       redirect: 'manual',
     })
     const setCookie = res.headers.getSetCookie().find(c => c.startsWith('nuxt-session='))

@@ -22,6 +22,8 @@ export function freePort(): Promise<number> {
 export async function startAppServer(extraEnv: Record<string, string> = {}) {
   if (!process.env.DATABASE_URL) throw new Error('DATABASE_URL is not set: run the tests through `npm test`')
   const mailDir = mkdtempSync(join(tmpdir(), 'floatwise-mail-'))
+  // Each server keeps motif pictures in a folder of its own, so tests can count what it stored.
+  const picturesDir = mkdtempSync(join(tmpdir(), 'floatwise-pictures-'))
   const mail = await startMailFake(mailDir)
   const port = await freePort()
   const baseUrl = `http://127.0.0.1:${port}`
@@ -35,6 +37,7 @@ export async function startAppServer(extraEnv: Record<string, string> = {}) {
     NUXT_DEV_MAIL: 'true',
     NUXT_APP_URL: baseUrl,
     NUXT_TRUST_PROXY: 'true', // lets each test sign in from its own address (see throttle.ts)
+    NUXT_PICTURES_DIR: picturesDir,
     ...extraEnv,
   }
   let child: ChildProcess | undefined
@@ -61,7 +64,7 @@ export async function startAppServer(extraEnv: Record<string, string> = {}) {
   }
   await start()
   return {
-    baseUrl, mailDir, port,
+    baseUrl, mailDir, picturesDir, port,
     restart: async () => { await stop(); await start() },
     close: async () => { await stop(); await mail.close() },
     output: () => output,

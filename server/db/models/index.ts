@@ -28,4 +28,6 @@ export function initModels(sequelize: Sequelize) {
   Project.belongsTo(User, { foreignKey: 'knitterId', as: 'knitter' })
   Piece.belongsTo(Project, { foreignKey: 'projectId', as: 'project' })
   RowEvent.belongsTo(Piece, { foreignKey: 'pieceId' })
+  Motif.belongsTo(User, { foreignKey: 'createdBy', as: 'creator', constraints: false })
+  Motif.belongsTo(User, { foreignKey: 'updatedBy', as: 'editor', constraints: false })
 }

@@ -1,10 +1,9 @@
 import { Hash } from '@adonisjs/hash'
 import { Scrypt } from '@adonisjs/hash/drivers/scrypt'
 import type { Sequelize, Transaction } from 'sequelize'
-import { analyseFloats, chartFromRows } from '../../../shared/knitting'
 import { borderedMotifTimeline, slotYarns } from '../../../shared/knit/timeline'
-import type { MotifFloatReport } from '../../../shared/types/motif'
 import { Machine, Membership, Motif, Piece, Project, RowEvent, Studio, User, Yarn } from '../models'
+import { motifRecord } from '../motifs'
 import { insertProject } from '../projects'
 
 // Invented demo data: a small studio on a salt marsh. Nothing here is real.
@@ -42,18 +41,6 @@ export const demoMotifs = [
   },
   { name: 'Heron steps (draft)', published: false, rows: ['xxx...', '.xxx..', '..xxx.', '...xxx', 'x...xx', 'xx...x'] },
 ]
-
-/** Motif cells as stored ('0'/'1' per cell) with the float report for its own width. */
-export function motifRecord(rows: string[]) {
-  const chart = chartFromRows(rows)
-  const report = analyseFloats(chart, { needles: chart.width * 4 })
-  return {
-    width: chart.width,
-    height: chart.height,
-    cells: Array.from(chart.cells).join(''),
-    floatReport: { maxFloat: report.maxFloat, verdict: report.verdict, longRows: report.longRows, unusedRows: report.unusedRows } satisfies MotifFloatReport,
-  }
-}
 
 /** Adds the demo studio once; a second run finds the owner and changes nothing. */
 export async function seedDemo(sequelize: Sequelize): Promise<'created' | 'present'> {

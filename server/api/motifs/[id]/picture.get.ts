@@ -1,0 +1,18 @@
+import { motifIdParams } from '../../../../shared/validation/motif'
+
+// The original picture a motif was made from, byte for byte, to whoever may see the motif.
+export default defineEventHandler(async (event) => {
+  await requireUser(event)
+  const { id } = paramsValid(event, motifIdParams)
+  const { motif } = await requireMotif(event, id)
+  const bytes = motif.pictureType ? await readPicture(motif.id) : null
+  if (!bytes || !motif.pictureType) throw createError({ statusCode: 404, message: 'This motif has no picture' })
+  setResponseHeaders(event, {
+    'content-type': motif.pictureType,
+    'content-length': bytes.length,
+    'x-content-type-options': 'nosniff',
+    'content-disposition': 'inline',
+    'cache-control': 'private, max-age=300',
+  })
+  return bytes
+})
