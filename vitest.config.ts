@@ -8,7 +8,7 @@ const bench = process.env.FLOATWISE_BENCH === '1'
 export default defineConfig({
   test: {
     projects: bench
-      ? [{ test: { name: 'bench', include: ['tests/bench/**/*.bench.ts'], environment: 'node', testTimeout: 600_000 } }]
+      ? [{ test: { name: 'bench', include: ['tests/bench/**/*.bench.ts'], environment: 'node', testTimeout: 600_000, hookTimeout: 60_000, globalSetup: ['tests/support/globalServer.ts'], fileParallelism: false } }]
       : [
           { test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node' } },
           await defineVitestProject({

@@ -57,7 +57,10 @@ export function useKnitSession(pieceId: number) {
     const before = completedRows.value
     sound.unlock()
     try {
-      await recordStep(db, pieceId, { kind, to, totalRows: compiled.value.rows.length })
+      const saved = await recordStep(db, pieceId, { kind, to, totalRows: compiled.value.rows.length })
+      // Show the committed place at once; the live query catches up (and follows other tabs).
+      progress.value = saved.progress
+      performance.mark('floatwise:step-saved') // read by the tap benchmark
       if (kind === 'advance') {
         paceSteps.value = [...paceSteps.value.slice(-40), { at: Date.now(), rows: to - before }]
         announce(before, to)

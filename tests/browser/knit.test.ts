@@ -37,7 +37,6 @@ async function openKnitView(context: BrowserContext, pieceId: number): Promise<P
 }
 
 const completed = async (page: Page) => Number(await page.getAttribute('[data-test="knit-row"]', 'data-completed'))
-const syncState = (page: Page) => page.getAttribute('[data-test="sync-state"]', 'data-state')
 async function waitForCompleted(page: Page, rows: number) {
   await page.waitForFunction(n => document.querySelector('[data-test="knit-row"]')?.getAttribute('data-completed') === String(n), rows)
 }
