@@ -104,7 +104,7 @@ export function motifFromCsv(content: string): { name?: string; rows: string[] }
     let row = ''
     values.forEach((v, c) => {
       if (v !== '0' && v !== '1') {
-        throw new MotifFileError(`line ${lineNo}, column ${c + 1}: expected 0 or 1, got ${v === '' ? 'nothing' : JSON.stringify(v).slice(0, 20)}`, { line: lineNo, column: c + 1 })
+        throw new MotifFileError(`line ${lineNo}, column ${c + 1}: expected 0 or 1, got ${v === '' ? 'nothing' : v.length > 12 ? `${v.slice(0, 12)}…` : v}`, { line: lineNo, column: c + 1 })
       }
       row += v
     })
