@@ -9,6 +9,8 @@ import type { Chart, Colour } from '../shared/knitting'
 /** Largest motif the editor offers (the tablet grid stays smooth at this size). */
 export const EDITOR_MAX_WIDTH = Math.min(200, MAX_CHART_WIDTH)
 export const EDITOR_MAX_HEIGHT = Math.min(500, MAX_CHART_HEIGHT)
+/** Stitch sizes on screen, in CSS px; 44 and up suit a fingertip. */
+export const CELL_SIZES = [6, 8, 10, 12, 16, 20, 24, 28, 36, 44, 56] as const
 
 export function copyChart(chart: Chart): Chart {
   return { width: chart.width, height: chart.height, cells: chart.cells.slice() }
