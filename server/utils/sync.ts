@@ -1,4 +1,4 @@
-import { Op, UniqueConstraintError, type Transaction } from 'sequelize'
+import { Op, UniqueConstraintError, type CreationAttributes, type Transaction } from 'sequelize'
 import type { SyncAnswer, SyncPieceState } from '../../shared/types/knit'
 import type { RowEventInput, SyncBody } from '../../shared/validation/knit'
 import { Piece, Project, RowEvent } from '../db/models'
@@ -40,15 +40,23 @@ export async function syncDevice(userId: number, body: SyncBody): Promise<SyncAn
   })
   const answer: SyncAnswer = { accepted: [], rejected: [], pieces: [] }
   const touched = new Set<number>()
-  for (const e of events) {
-    const piece = pieces.get(e.pieceId)
+  // Consecutive events of one piece are stored in one transaction (a device drains its outbox
+  // in order, so a batch is mostly runs of the same piece): one lock and one commit per run.
+  for (let i = 0; i < events.length;) {
+    const piece = pieces.get(events[i]!.pieceId)
+    let j = i + 1
+    while (j < events.length && events[j]!.pieceId === events[i]!.pieceId) j++
+    const run = events.slice(i, j)
+    i = j
     if (!piece) {
-      answer.rejected.push({ id: e.id, reason: 'not a piece you are knitting' })
+      for (const e of run) answer.rejected.push({ id: e.id, reason: 'not a piece you are knitting' })
       continue
     }
-    const outcome = await storeRowEvent(userId, deviceId, piece, e)
-    if (outcome === 'foreign') answer.rejected.push({ id: e.id, reason: 'this event id belongs to another event' })
-    else answer.accepted.push(e.id)
+    const outcomes = await storeRowEvents(userId, deviceId, piece, run)
+    run.forEach((e, k) => {
+      if (outcomes[k] === 'foreign') answer.rejected.push({ id: e.id, reason: 'this event id belongs to another event' })
+      else answer.accepted.push(e.id)
+    })
     touched.add(piece.id)
   }
   for (const id of body.pieceIds ?? []) if (pieces.has(id)) touched.add(id)
@@ -56,33 +64,57 @@ export async function syncDevice(userId: number, body: SyncBody): Promise<SyncAn
   return answer
 }
 
-/** One event in its own transaction: the project, then the piece, locked (always in that order). */
-async function storeRowEvent(userId: number, deviceId: string, target: KnittablePiece, e: RowEventInput): Promise<Outcome> {
+/**
+ * A run of one piece's events in one transaction: the project, then the piece, locked (always
+ * in that order), then each event decided in device order exactly as if it came alone.
+ */
+async function storeRowEvents(userId: number, deviceId: string, target: KnittablePiece, events: RowEventInput[]): Promise<Outcome[]> {
   try {
     return await useDb().transaction(async (transaction) => {
       // Locking the project first serialises every step of its pieces, so the reads below see
       // the latest committed state (finishing the last piece is seen by exactly one step).
       const project = await Project.findByPk(target.projectId, { lock: transaction.LOCK.UPDATE, transaction, attributes: ['id', 'status', 'startedAt', 'finishedAt'] })
       const piece = await Piece.findByPk(target.id, { lock: transaction.LOCK.UPDATE, transaction, attributes: { exclude: ['timeline'] } })
-      const existing = await RowEvent.findByPk(e.id, { transaction })
-      if (existing) return sameEvent(existing, userId, e) ? 'replay' : 'foreign'
+      const known = new Map((await RowEvent.findAll({ where: { id: events.map(e => e.id) }, transaction })).map(r => [r.id, r]))
       const previous = await RowEvent.findOne({ where: { pieceId: piece!.id, deviceId }, order: [['seq', 'DESC']], attributes: ['outcome'], transaction })
-      const applies = e.version === piece!.version && (previous?.outcome !== 'conflict' || e.kind === 'jump')
-      const now = new Date()
-      await RowEvent.create({
-        id: e.id, pieceId: piece!.id, userId, deviceId, kind: e.kind, fromRows: e.from, toRows: e.to, version: e.version,
-        at: new Date(e.at), receivedAt: now, outcome: applies ? 'applied' : 'conflict',
-      }, { transaction })
-      if (!applies) return 'conflict'
-      await movePiece(project!, piece!, e.to, deviceId, now, transaction)
-      return 'applied'
+      let lastOutcome = previous?.outcome
+      let moved: { to: number; at: Date } | null = null
+      const rows: CreationAttributes<RowEvent>[] = []
+      const seen = new Set<string>()
+      const outcomes = events.map((e): Outcome => {
+        const existing = known.get(e.id)
+        if (existing) return sameEvent(existing, userId, e) ? 'replay' : 'foreign'
+        if (seen.has(e.id)) return 'replay' // the same new event twice in one batch
+        seen.add(e.id)
+        const applies = e.version === piece!.version && (lastOutcome !== 'conflict' || e.kind === 'jump')
+        const now = new Date()
+        rows.push({
+          id: e.id, pieceId: piece!.id, userId, deviceId, kind: e.kind, fromRows: e.from, toRows: e.to, version: e.version,
+          at: new Date(e.at), receivedAt: now, outcome: applies ? 'applied' : 'conflict',
+        })
+        lastOutcome = applies ? 'applied' : 'conflict'
+        if (!applies) return 'conflict'
+        piece!.version += 1
+        moved = { to: e.to, at: now }
+        return 'applied'
+      })
+      if (rows.length) await RowEvent.bulkCreate(rows, { transaction })
+      const last = moved as { to: number; at: Date } | null
+      if (last) await movePiece(project!, piece!, last.to, deviceId, last.at, transaction)
+      return outcomes
     })
   }
   catch (error) {
     // Two requests carrying the same new event: the second insert loses on the primary key.
-    if (!(error instanceof UniqueConstraintError)) throw error
-    const existing = await RowEvent.findByPk(e.id)
-    return existing && sameEvent(existing, userId, e) ? 'replay' : 'foreign'
+    // Decide that run again one event at a time, now that the other request's rows are visible.
+    if (!(error instanceof UniqueConstraintError) || events.length === 1) {
+      if (!(error instanceof UniqueConstraintError)) throw error
+      const existing = await RowEvent.findByPk(events[0]!.id)
+      return [existing && sameEvent(existing, userId, events[0]!) ? 'replay' : 'foreign']
+    }
+    const outcomes: Outcome[] = []
+    for (const e of events) outcomes.push(...await storeRowEvents(userId, deviceId, target, [e]))
+    return outcomes
   }
 }
 
@@ -90,10 +122,10 @@ function sameEvent(stored: RowEvent, userId: number, e: RowEventInput) {
   return stored.userId === userId && stored.pieceId === e.pieceId
 }
 
+/** The piece's new place (its version was already counted up per applied event), and the project's status. */
 async function movePiece(project: Project, piece: Piece, to: number, deviceId: string, now: Date, transaction: Transaction) {
   const done = to >= piece.totalRows
   piece.completedRows = to
-  piece.version += 1
   piece.lastDeviceId = deviceId
   piece.lastKnittedAt = now
   piece.finishedAt = done ? (piece.finishedAt ?? now) : null

@@ -57,7 +57,8 @@ export async function up({ context: qi }: { context: QueryInterface }) {
     outcome: { type: DataTypes.ENUM('applied', 'conflict', 'rejected'), allowNull: false },
   })
   await qi.addIndex('row_events', ['piece_id', 'received_at'])
-  await qi.addIndex('row_events', ['piece_id', 'device_id'])
+  // "This device's latest event on the piece" is read for every event synced: keep it an index lookup.
+  await qi.addIndex('row_events', ['piece_id', 'device_id', 'seq'])
 }
 
 export async function down({ context: qi }: { context: QueryInterface }) {
