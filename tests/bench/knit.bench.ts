@@ -19,17 +19,27 @@ beforeAll(async () => {
 })
 afterAll(async () => { await browser?.close() })
 
-async function freshPiece(chartRows: number) {
+async function freshPiece(chartRows: number, pieceCount = 1) {
   const motifs = (await api.get(`/api/motifs?studioId=${studioId}&pageSize=200`)).body
   const list = Array.isArray(motifs) ? motifs : motifs.items
   const yarns = (await api.get(`/api/yarns?studioId=${studioId}`)).body
   const res = await api.post('/api/projects', {
     studioId, name: 'Bench jumper', motifId: list.find((m: { name: string }) => m.name === 'Marsh wave').id,
     borderBefore: 0, chartRows, borderAfter: 0, needles: 120, technique: 'together',
-    mainYarnId: yarns[0].id, contrastYarnId: yarns[1].id, pieces: [{ name: 'Back' }],
+    mainYarnId: yarns[0].id, contrastYarnId: yarns[1].id, pieces: Array.from({ length: pieceCount }, (_, i) => ({ name: `Piece ${i + 1}` })),
   })
   expect(res.status, JSON.stringify(res.body)).toBe(201)
   return res.body.pieces[0].id as number
+}
+
+async function freshPieces(count: number) {
+  const ids: number[] = []
+  while (ids.length < count) {
+    const first = await freshPiece(200, Math.min(12, count - ids.length))
+    const project = (await api.get(`/api/pieces/${first}`)).body.projectId
+    ids.push(...(await api.get(`/api/projects/${project}`)).body.pieces.map((p: { id: number }) => p.id))
+  }
+  return ids
 }
 
 const percentile = (sorted: number[], p: number) => sorted[Math.min(sorted.length - 1, Math.floor(p * sorted.length))]!
@@ -97,19 +107,25 @@ it('draining 5,000 queued events', async () => {
 })
 
 it('POST /api/sync under load against a trivial route of the same server', async () => {
-  const pieceId = await freshPiece(5000)
+  // 50 tablets, each knitting its own piece: every request is one step on one of them.
+  const pieceIds = await freshPieces(50)
   const baseUrl = inject('baseUrl')
   const headers = { 'content-type': 'application/json', cookie: api.cookie, 'x-forwarded-for': api.address }
   const run = (opts: autocannon.Options) => new Promise<autocannon.Result>((resolve, reject) =>
     autocannon({ connections: 50, duration: 8, ...opts }, (err, res) => (err ? reject(err) : resolve(res))))
   const trivial = await run({ url: `${baseUrl}/api/health`, headers })
-  // Single-event batches, each a new event id; after the first, they build on an old version
-  // and are stored as conflicting steps: every request still locks the piece and writes a row.
+  // Single-event batches, each a new event id on a random tablet's piece. Versions are not
+  // tracked here, so most steps are stored as conflicting ones: every request still locks its
+  // project and piece, writes a row to the log and answers with the piece's state.
   const sync = await run({
     url: `${baseUrl}/api/sync`, method: 'POST', headers,
     requests: [{
       method: 'POST',
-      setupRequest: req => ({ ...req, body: JSON.stringify({ deviceId: 'bench-device-1', events: [{ id: randomUUID(), pieceId, kind: 'jump', from: 0, to: 1, version: 0, at: new Date().toISOString() }] }) }),
+      setupRequest: (req) => {
+        const k = Math.floor(Math.random() * pieceIds.length)
+        const event = { id: randomUUID(), pieceId: pieceIds[k], kind: 'jump', from: 0, to: 1, version: 0, at: new Date().toISOString() }
+        return { ...req, body: JSON.stringify({ deviceId: `bench-tablet-${k}`, events: [event] }) }
+      },
     }],
   })
   console.log('\nPOST /api/sync (single-event batches, 50 connections, 8 s) against GET /api/health')
