@@ -65,9 +65,14 @@ export function rowRanges(rows: number[]): string {
   return parts.join(', ')
 }
 
+/** "row 3" or "rows 1–4, 9". */
+export function rowsPhrase(rows: number[]): string {
+  return `${rows.length === 1 ? 'row' : 'rows'} ${rowRanges(rows)}`
+}
+
 /** Needle pitches by machine gauge (DESIGN §2, common practice). */
 export const needlePitches = [
-  { mm: 4.5, label: 'Standard gauge, 4.5 mm' },
-  { mm: 6.5, label: 'Mid gauge, 6.5 mm' },
+  { mm: 4.5, label: 'Standard, 4.5 mm' },
+  { mm: 6.5, label: 'Mid, 6.5 mm' },
   { mm: 9, label: 'Bulky, 9 mm' },
 ] as const

@@ -130,18 +130,36 @@ describe('the motif editor', () => {
     await context.close()
   })
 
-  it('looks right at tablet size in portrait and landscape, and axe finds nothing serious', async () => {
-    for (const orientation of ['portrait', 'landscape'] as const) {
-      const context = await newTabletContext(browser, orientation)
+  it('says "not saved" while offline and saves when the connection returns', async () => {
+    const { api, studioId } = await studioApi(designer)
+    const made = await api.post('/api/motifs', { studioId, name: `Offline ${tag()}`, rows: ['....', '....'] })
+    const context = await newTabletContext(browser, 'portrait')
+    const page = await open(context, designer, `/motifs/${made.body.id}`)
+    await page.waitForSelector('[data-test="motif-grid"]')
+    await context.setOffline(true)
+    await stitch(page, 0, 1)
+    await page.waitForFunction(() => document.querySelector('[data-test="motif-save-state"]')?.getAttribute('data-state') === 'offline')
+    expect(await page.textContent('[data-test="motif-save-state"]')).toContain('offline')
+    await screenshot(page, 'motif-editor-offline-portrait')
+    await context.setOffline(false)
+    await waitForSaved(page)
+    expect((await api.get(`/api/motifs/${made.body.id}`)).body.rows).toEqual(['.x..', '....'])
+    await context.close()
+  })
+
+  it('looks right at tablet size in portrait and landscape (and dark), and axe finds nothing serious', async () => {
+    for (const [orientation, dark] of [['portrait', false], ['landscape', false], ['landscape', true]] as const) {
+      const context = await newTabletContext(browser, orientation, { dark })
       const page = await open(context, designer, '/motifs?q=Lantern')
       await page.click('[data-test="motif-link"]')
       await page.waitForSelector('[data-test="motif-grid"]')
       await waitForVerdict(page, 'long')
       await page.waitForTimeout(300)
-      await screenshot(page, `motif-editor-${orientation}`)
+      const name = `motif-editor-${orientation}${dark ? '-dark' : ''}`
+      await screenshot(page, name)
       await page.evaluate(() => document.querySelector('[data-test="motif-repeat-preview"]')?.scrollIntoView())
-      await screenshot(page, `motif-editor-${orientation}-preview`)
-      expect(await axeSerious(page), `editor, ${orientation}`).toEqual([])
+      await screenshot(page, `${name}-preview`)
+      expect(await axeSerious(page), name).toEqual([])
       // Touch targets: every button and link on the editor is at least 44 px high.
       const small = await page.$$eval('main button, main a, main select, main input:not([type=checkbox]):not([type=color])', els => els
         .filter(e => (e as HTMLElement).offsetParent !== null)
