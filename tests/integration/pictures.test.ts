@@ -6,7 +6,7 @@ import { closeTestDb, fixturePassword, makeStudio } from '../support/db'
 import { chartPicture, jpegOf, pictureForm, pngOf } from '../support/pictures'
 import { Motif } from '../../server/db/models'
 import { chartToRows, imageToChart, otsuThreshold } from '../../shared/knitting'
-import type { MotifDetail, PicturePreview } from '../../shared/types/motif'
+import type { PicturePreview } from '../../shared/types/motif'
 
 // Pictures are made here with pngjs and jpeg-js; the WebP files in tests/fixtures/pictures
 // were made once with cwebp 1.2.4 from the same 4 × 3 chart (10 px cells) as `chartRows`:
@@ -22,12 +22,14 @@ const picturesDir = inject('picturesDir')
 
 beforeAll(async () => {
   s = await makeStudio()
-  ;[designer, knitter, outsider] = await Promise.all([s.designer, s.knitter, s.outsider].map(u => signedIn(u.email, fixturePassword)))
+  designer = await signedIn(s.designer.email, fixturePassword)
+  knitter = await signedIn(s.knitter.email, fixturePassword)
+  outsider = await signedIn(s.outsider.email, fixturePassword)
 })
 afterAll(closeTestDb)
 
 const upload = (client: ApiClient, fields: Record<string, string | number | boolean>, bytes?: Uint8Array, filename?: string, type?: string) =>
-  client.post<MotifDetail>('/api/motifs/from-picture', pictureForm({ studioId: s.studio.id, name: 'From a picture', width: 4, height: 3, ...fields }, bytes, filename, type))
+  client.post('/api/motifs/from-picture', pictureForm({ studioId: s.studio.id, name: 'From a picture', width: 4, height: 3, ...fields }, bytes, filename, type))
 const preview = (fields: Record<string, string | number | boolean>, bytes: Uint8Array) =>
   designer.post<PicturePreview>('/api/motifs/picture-preview', pictureForm({ studioId: s.studio.id, ...fields }, bytes))
 

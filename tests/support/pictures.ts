@@ -39,6 +39,6 @@ export function chartPicture(rows: string[], cell = 10, encode: typeof pngOf = p
 export function pictureForm(fields: Record<string, string | number | boolean>, picture?: Uint8Array, filename = 'picture.png', type = 'image/png') {
   const form = new FormData()
   for (const [key, value] of Object.entries(fields)) form.append(key, String(value))
-  if (picture) form.append('picture', new Blob([picture], { type }), filename)
+  if (picture) form.append('picture', new Blob([new Uint8Array(picture)], { type }), filename)
   return form
 }
