@@ -362,6 +362,7 @@ describe('the library', () => {
     const names = await page.$$eval('[data-test="motif-row"]', rows => rows.map(r => r.getAttribute('data-name')))
     expect(names).toEqual(expect.arrayContaining(['Lantern medallion', 'Marsh wave', 'Pebble check']))
     expect(names).not.toContain('Heron steps (draft)')
+    await screenshot(page, 'motif-library-knitter-landscape')
     for (const control of ['motif-new', 'motif-import', 'motif-from-picture', 'motif-duplicate', 'motif-delete']) {
       expect(await page.locator(`[data-test="${control}"]`).count(), control).toBe(0)
     }
