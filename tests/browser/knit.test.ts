@@ -14,7 +14,7 @@ afterAll(async () => { await browser?.close() })
 async function freshPiece(pieces = ['Back']) {
   const api = await signedIn('knitter@floatwise.test', 'floatwise-demo')
   const studioId = (await api.get('/api/me')).body.studios[0].id
-  const motifs = (await api.get(`/api/motifs?studioId=${studioId}`)).body
+  const motifs = (await api.get(`/api/motifs?studioId=${studioId}&pageSize=200`)).body.items
   const yarns = (await api.get(`/api/yarns?studioId=${studioId}`)).body
   const yarn = (name: string) => yarns.find((y: { name: string }) => y.name === name).id
   const res = await api.post('/api/projects', {
