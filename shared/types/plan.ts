@@ -1,0 +1,195 @@
+// The planner: machines, yarn stock, swatches and plans, as the API answers with them.
+// Times are ISO strings (UTC). Lengths carry their unit; engine numbers are unrounded
+// unless named as counts (needles, rows, stitches).
+
+import type { Distinguishability } from '../knitting'
+import type { Technique, YarnListItem } from './studio'
+
+export type LengthUnit = 'cm' | 'in'
+
+/** GET/POST /api/machines, PATCH /api/machines/:id. */
+export interface MachineItem {
+  id: number
+  studioId: number
+  name: string
+  needlePitchMm: number
+  /** Needles on the bed. */
+  needles: number
+  /** Stitches in one pattern repeat the machine can select (punch card or electronic width). */
+  patterningWidth: number
+  technique: Technique
+  passesPerColour: number
+  notes: string
+  createdAt: string
+  updatedAt: string
+}
+
+/** GET /api/yarns (list; keeps YarnListItem's fields), POST /api/yarns, PATCH /api/yarns/:id. */
+export interface YarnItem extends YarnListItem {
+  studioId: number
+  /** Craft Yarn Council name of weightCategory (e.g. "Fine"). */
+  weightName: string
+  notes: string
+  createdAt: string
+  updatedAt: string
+}
+
+/** The engine's numbers for a swatch. */
+export interface SwatchGauge {
+  stitchesPer10cm: number
+  rowsPer10cm: number
+  stitchesPer4in: number
+  rowsPer4in: number
+  stitchWidthMm: number
+  rowHeightMm: number
+  /** yarnWeightCategory(stitchesPer4in); null past 40 stitches per 4 in. */
+  weightCategory: { category: number; name: string; alsoFits: number[] } | null
+}
+
+/** GET/POST /api/swatches, GET/PATCH /api/swatches/:id. */
+export interface SwatchItem {
+  id: number
+  studioId: number
+  machineId: number | null
+  /** As the knitter typed it: a machine setting is free text. */
+  stitchSize: string
+  mainYarnId: number | null
+  contrastYarnId: number | null
+  /** Stitches and rows counted … */
+  stitches: number
+  rows: number
+  /** … over this measured width and height, in `unit`. */
+  width: number
+  height: number
+  unit: LengthUnit
+  /** Weight of the whole swatch (needed for the yarn estimate). */
+  grams: number | null
+  washed: boolean
+  notes: string
+  gauge: SwatchGauge
+  createdAt: string
+  updatedAt: string
+}
+
+/** A plan names its yarns by slot letter: 'A' is the main colour, then 'B', 'C' … */
+export interface PlanYarnSlot { slot: string; yarnId: number }
+
+/**
+ * One section of a plan piece, in knitting order.
+ * - plain: `rows` rows, or `lengthCm` turned into rows with the swatch gauge.
+ * - motif: `chartRows` chart rows, or `lengthCm` turned into chart rows with the swatch gauge.
+ * - shaping: `stitchesEachSide` increases or decreases at each edge, spread over `rows` rows;
+ *   those rows are knitted plain in the yarn of the section before (slot 'A' at the start).
+ * - notes take no rows: they become the note of the next section with rows (the last one's
+ *   when nothing follows).
+ */
+export type PlanSection =
+  | { kind: 'cast-on-note' | 'setting-note' | 'cast-off-note'; text: string }
+  | { kind: 'plain'; label?: string; rows?: number; lengthCm?: number; yarn: string; stitchSize?: string }
+  | {
+    kind: 'motif'; label?: string; motifId: number; placement: 'centred' | { offset: number }
+    chartRows?: number; lengthCm?: number; main: string; contrast: string
+  }
+  | { kind: 'shaping'; label?: string; change: 'increase' | 'decrease'; stitchesEachSide: number; rows: number }
+
+export type PlanSectionKind = PlanSection['kind']
+
+export interface PlanPieceInput {
+  name: string
+  /** Pieces knitted more than once (two sleeves): copies 2. */
+  copies: number
+  targetWidth: number
+  targetLength: number
+  unit: LengthUnit
+  /** Added to the target width before needles are counted (same unit; may be negative). */
+  ease: number
+  sections: PlanSection[]
+}
+
+export interface PlanPerson { id: number; name: string }
+
+/** GET /api/plans?studioId (knitters see published plans only). */
+export interface PlanSummary {
+  id: number
+  studioId: number
+  name: string
+  machineId: number | null
+  swatchId: number | null
+  yarns: PlanYarnSlot[]
+  floatLimit: number
+  published: boolean
+  pieceCount: number
+  createdBy: PlanPerson | null
+  updatedBy: PlanPerson | null
+  createdAt: string
+  updatedAt: string
+}
+
+export type PlanWarningKind = 'long-floats' | 'colours-close' | 'needles-over-bed' | 'repeat-over-patterning-width' | 'low-stock' | 'no-gauge' | 'no-estimate' | 'section'
+
+export interface PlanWarning {
+  kind: PlanWarningKind
+  /** Piece index (0-based) and section index, when the warning is about one. */
+  piece?: number
+  section?: number
+  message: string
+}
+
+/** The engine's numbers for one section (null where the section has no such number). */
+export interface PlanSectionNumbers {
+  kind: PlanSectionKind
+  /** Chart rows (motif) or rows (plain, shaping); 0 for notes. */
+  rows: number
+  /** Motif: repeats across the needles in work, with the centred (or given) offset. */
+  placement: { offset: number; fullRepeats: number; leftoverLeft: number; leftoverRight: number; chartWidth: number } | null
+  /** Motif: longest float per colour (main, contrast) in stitches and mm. */
+  maxFloat: [number, number] | null
+  maxFloatMm: [number, number] | null
+  /** Shaping: spreadShaping and describeShaping, e.g. "every 7th row ×4, every 8th row ×4". */
+  shaping: { steps: { every: number; times: number }[]; text: string; stitchesAfter: number } | null
+}
+
+export interface PlanPieceNumbers {
+  /** stitchesForWidth(target width + ease). */
+  needles: number
+  /** rowsForLength(target length). */
+  targetRows: number
+  /** Chart/plain rows the sections add up to (compare with targetRows). */
+  plannedRows: number
+  /** Compiled timeline: machine rows (passes) and colour changes. */
+  machineRows: number
+  colourChanges: number
+  sections: PlanSectionNumbers[]
+}
+
+export interface PlanPiece extends PlanPieceInput {
+  id: number
+  position: number
+  /** Null when the plan has no swatch or the piece cannot be worked out (see warnings). */
+  numbers: PlanPieceNumbers | null
+}
+
+export interface PlanYarnNeed {
+  slot: string
+  yarnId: number
+  name: string
+  hex: string
+  /** Over every piece times its copies. */
+  grams: number
+  metres: number
+  floatGrams: number
+  gramsOnHand: number
+  low: boolean
+}
+
+export interface PlanDetail extends PlanSummary {
+  notes: string
+  pieces: PlanPiece[]
+  /** Gauge of the plan's swatch, null without one. */
+  gauge: SwatchGauge | null
+  warnings: PlanWarning[]
+  /** Colour pairs of the plan's slots (main vs each other slot). */
+  contrast: ({ slots: [string, string] } & Distinguishability)[]
+  /** Null when the swatch has no weight or there is no swatch or machine. */
+  estimate: { model: string; yarns: PlanYarnNeed[] } | null
+}

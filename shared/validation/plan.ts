@@ -1,0 +1,154 @@
+import { z } from 'zod'
+import { MAX_PLAN_ROWS } from '../knitting/plan'
+import { nameSchema } from './auth'
+
+// Machines, yarn stock, swatches and plans: bodies of the planner routes. Create bodies
+// carry studioId; patch bodies are the same fields, all optional (studioId never moves).
+
+const id = z.number('must be a number').int('must be a whole number').positive('must be a positive id').max(2 ** 31)
+const count = (min: number, max: number) => z.number('must be a number').int('must be a whole number')
+  .min(min, `must be at least ${min}`).max(max, `must be at most ${max}`)
+const positive = (max: number) => z.number('must be a number').positive('must be more than 0').max(max, `must be at most ${max}`)
+const notes = z.string('must be text').max(5000, 'must be at most 5000 characters')
+const technique = z.enum(['together', 'colour-by-colour'], 'must be "together" or "colour-by-colour"')
+export const lengthUnit = z.enum(['cm', 'in'], 'must be "cm" or "in"')
+const slot = z.string('must be a slot letter').regex(/^[A-F]$/, 'must be a slot letter A–F')
+
+const machineFields = {
+  name: nameSchema,
+  needlePitchMm: positive(50),
+  needles: count(1, 1000),
+  patterningWidth: count(1, 200),
+  technique,
+  passesPerColour: count(1, 8),
+  notes,
+}
+export const machineBody = z.object({ studioId: id, ...machineFields, technique: technique.default('together'), passesPerColour: count(1, 8).default(2), notes: notes.default('') })
+export const machinePatch = z.object(machineFields).partial()
+export type MachineBody = z.infer<typeof machineBody>
+export type MachinePatch = z.infer<typeof machinePatch>
+
+const yarnFields = {
+  name: nameSchema,
+  hex: z.string('must be text').regex(/^#[0-9a-fA-F]{6}$/, 'must be a colour like #1a2b3c').transform(s => s.toLowerCase()),
+  weightCategory: count(0, 7),
+  metresPer100g: positive(100000),
+  gramsOnHand: z.number('must be a number').min(0, 'must be at least 0').max(1000000, 'must be at most 1000000'),
+  notes,
+}
+export const yarnBody = z.object({ studioId: id, ...yarnFields, gramsOnHand: yarnFields.gramsOnHand.default(0), notes: notes.default('') })
+export const yarnPatch = z.object(yarnFields).partial()
+export type YarnBody = z.infer<typeof yarnBody>
+export type YarnPatch = z.infer<typeof yarnPatch>
+
+const swatchFields = {
+  machineId: id.nullable(),
+  stitchSize: z.string('must be text').trim().max(60, 'must be at most 60 characters'),
+  mainYarnId: id.nullable(),
+  contrastYarnId: id.nullable(),
+  stitches: count(1, 1000),
+  rows: count(1, 5000),
+  width: positive(1000),
+  height: positive(1000),
+  unit: lengthUnit,
+  grams: positive(100000).nullable(),
+  washed: z.boolean('must be true or false'),
+  notes,
+}
+export const swatchBody = z.object({
+  studioId: id,
+  ...swatchFields,
+  machineId: swatchFields.machineId.default(null),
+  stitchSize: swatchFields.stitchSize.default(''),
+  mainYarnId: swatchFields.mainYarnId.default(null),
+  contrastYarnId: swatchFields.contrastYarnId.default(null),
+  grams: swatchFields.grams.default(null),
+  washed: swatchFields.washed.default(false),
+  notes: notes.default(''),
+})
+export const swatchPatch = z.object(swatchFields).partial()
+export type SwatchBody = z.infer<typeof swatchBody>
+export type SwatchPatch = z.infer<typeof swatchPatch>
+
+const label = z.string('must be text').trim().max(120, 'must be at most 120 characters').optional()
+const rows = count(1, MAX_PLAN_ROWS)
+const lengthCm = positive(1000)
+
+const noteSection = z.object({
+  kind: z.enum(['cast-on-note', 'setting-note', 'cast-off-note']),
+  text: z.string('must be text').trim().min(1, 'is required').max(1000, 'must be at most 1000 characters'),
+})
+const plainSection = z.object({
+  kind: z.literal('plain'), label, rows: rows.optional(), lengthCm: lengthCm.optional(), yarn: slot,
+  stitchSize: z.string('must be text').trim().max(60, 'must be at most 60 characters').optional(),
+})
+const motifSection = z.object({
+  kind: z.literal('motif'), label, motifId: id,
+  placement: z.union([z.literal('centred'), z.object({ offset: count(0, 1000) })], 'must be "centred" or { offset }'),
+  chartRows: rows.optional(), lengthCm: lengthCm.optional(), main: slot, contrast: slot,
+})
+const shapingSection = z.object({
+  kind: z.literal('shaping'), label,
+  change: z.enum(['increase', 'decrease'], 'must be "increase" or "decrease"'),
+  stitchesEachSide: count(1, 500),
+  rows: count(1, 100000),
+})
+
+/** Exactly one of the two ways to say how long a section is. */
+function oneLength<T extends { rows?: number; chartRows?: number; lengthCm?: number }>(key: 'rows' | 'chartRows') {
+  return (s: T, ctx: z.RefinementCtx) => {
+    const given = (s[key] !== undefined ? 1 : 0) + (s.lengthCm !== undefined ? 1 : 0)
+    if (given !== 1) ctx.addIssue({ code: 'custom', path: [key], message: `give either ${key} or lengthCm` })
+  }
+}
+
+export const planSectionSchema = z.discriminatedUnion('kind', [
+  noteSection,
+  plainSection.superRefine(oneLength('rows')),
+  motifSection.superRefine(oneLength('chartRows')).refine(s => s.main !== s.contrast, { path: ['contrast'], message: 'must be a different slot from main' }),
+  shapingSection,
+], 'must be a section with a kind: plain, motif, shaping or a note')
+
+export const planPieceSchema = z.object({
+  name: nameSchema,
+  copies: count(1, 10).default(1),
+  targetWidth: positive(1000),
+  targetLength: positive(1000),
+  unit: lengthUnit.default('cm'),
+  ease: z.number('must be a number').min(-100, 'must be at least -100').max(100, 'must be at most 100').default(0),
+  sections: z.array(planSectionSchema, 'must be a list of sections').min(1, 'at least one section').max(100, 'at most 100 sections'),
+})
+
+const planFields = {
+  name: nameSchema,
+  machineId: id.nullable(),
+  swatchId: id.nullable(),
+  yarns: z.array(z.object({ slot, yarnId: id }), 'must be a list of { slot, yarnId }').max(6, 'at most 6 yarns')
+    .refine(list => new Set(list.map(y => y.slot)).size === list.length, 'each slot at most once'),
+  floatLimit: count(1, 50),
+  published: z.boolean('must be true or false'),
+  notes,
+  pieces: z.array(planPieceSchema, 'must be a list of pieces').min(1, 'at least one piece').max(12, 'at most 12 pieces'),
+}
+export const planBody = z.object({
+  studioId: id,
+  ...planFields,
+  machineId: planFields.machineId.default(null),
+  swatchId: planFields.swatchId.default(null),
+  yarns: planFields.yarns.default([]),
+  floatLimit: planFields.floatLimit.default(5),
+  published: planFields.published.default(false),
+  notes: notes.default(''),
+})
+/** A patch replaces whole fields: `pieces` given replaces every piece. */
+export const planPatch = z.object(planFields).partial()
+export type PlanBody = z.infer<typeof planBody>
+export type PlanPatch = z.infer<typeof planPatch>
+
+/** POST /api/plans/:id/projects: which pieces (by index; default all) and a name (default the plan's). */
+export const planProjectBody = z.object({
+  name: nameSchema.optional(),
+  pieces: z.array(count(0, 11), 'must be a list of piece indexes').min(1, 'at least one piece').optional(),
+  notes: notes.optional(),
+})
+export type PlanProjectBody = z.infer<typeof planProjectBody>
