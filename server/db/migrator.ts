@@ -4,6 +4,7 @@ import * as m0001 from './migrations/0001-accounts'
 import * as m0002 from './migrations/0002-studio-stock'
 import * as m0003 from './migrations/0003-projects'
 import * as m0004 from './migrations/0004-motif-library'
+import * as m0005 from './migrations/0005-planner'
 
 // Listed by hand (no file glob) so the bundled server and scripts find the same set.
 // Append new migrations; never edit one that has shipped.
@@ -12,6 +13,7 @@ const migrations = [
   { name: '0002-studio-stock', ...m0002 },
   { name: '0003-projects', ...m0003 },
   { name: '0004-motif-library', ...m0004 },
+  { name: '0005-planner', ...m0005 },
 ]
 
 export function createMigrator(sequelize: Sequelize) {

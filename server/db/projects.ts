@@ -16,6 +16,7 @@ export interface ProjectDraft {
   notes?: string
   source: ProjectPlanSnapshot['source']
   motifName?: string
+  plan?: ProjectPlanSnapshot['plan']
   pieces: { name: string; timeline: PieceTimeline }[]
 }
 
@@ -34,6 +35,7 @@ export async function insertProject(draft: ProjectDraft, transaction: Transactio
   const snapshot: ProjectPlanSnapshot = {
     source: draft.source,
     motif: draft.motifName ? { id: draft.motifId ?? null, name: draft.motifName } : null,
+    ...(draft.plan ? { plan: draft.plan } : {}),
     pieces: draft.pieces.map(p => ({ name: p.name, timeline: p.timeline })),
   }
   const project = await Project.create({

@@ -39,8 +39,10 @@ export interface ProjectYarn extends SlotYarn { yarnId: number | null }
 
 /** What the project keeps of how it was made, so later edits of a motif or plan never move a row. */
 export interface ProjectPlanSnapshot {
-  source: 'new-project-form' | 'demo' | 'fixture'
+  source: 'new-project-form' | 'demo' | 'fixture' | 'plan'
   motif: { id: number | null; name: string } | null
+  /** The plan it was started from (source 'plan'), as it was named then. */
+  plan?: { id: number; name: string }
   pieces: { name: string; timeline: PieceTimeline }[]
 }
 

@@ -5,7 +5,8 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { apiClient, signedIn, uniqueEmail, type ApiClient } from '../support/api'
 import { linkIn, waitForMail } from '../support/mail'
 import { closeTestDb, fixturePassword, makeProject, makeStock, makeStudio, makeUser } from '../support/db'
-import { Membership, Motif } from '../../server/db/models'
+import { Machine, Membership, Motif, Plan, PlanPiece, Swatch, Yarn } from '../../server/db/models'
+import type { PlanSection } from '../../shared/types/plan'
 import { motifRecord } from '../../server/db/motifs'
 import { chartPicture, pictureForm } from '../support/pictures'
 import { root } from '../support/appServer'
@@ -85,6 +86,26 @@ export const roleMatrix: Row[] = [
     expect: studioDesigner(200),
   },
   { route: 'GET /api/yarns', call: f => ({ method: 'GET', path: `/api/yarns?studioId=${f.studio.id}` }), expect: studioMember(200) },
+  { route: 'POST /api/yarns', call: f => ({ method: 'POST', path: '/api/yarns', body: planner.yarnBody(f) }), expect: studioDesigner(201) },
+  { route: 'PATCH /api/yarns/[id]', call: async f => ({ method: 'PATCH', path: `/api/yarns/${(await planner.yarn(f)).id}`, body: { gramsOnHand: 250 } }), expect: studioDesigner(200) },
+  // Machines and yarns are the studio's stock: only the owner deletes them.
+  { route: 'DELETE /api/yarns/[id]', call: async f => ({ method: 'DELETE', path: `/api/yarns/${(await planner.yarn(f)).id}` }), expect: studioOwner(204) },
+  { route: 'GET /api/machines', call: f => ({ method: 'GET', path: `/api/machines?studioId=${f.studio.id}` }), expect: studioMember(200) },
+  { route: 'POST /api/machines', call: f => ({ method: 'POST', path: '/api/machines', body: planner.machineBody(f) }), expect: studioDesigner(201) },
+  { route: 'PATCH /api/machines/[id]', call: async f => ({ method: 'PATCH', path: `/api/machines/${(await planner.machine(f)).id}`, body: { notes: 'Matrix' } }), expect: studioDesigner(200) },
+  { route: 'DELETE /api/machines/[id]', call: async f => ({ method: 'DELETE', path: `/api/machines/${(await planner.machine(f)).id}` }), expect: studioOwner(204) },
+  { route: 'GET /api/swatches', call: f => ({ method: 'GET', path: `/api/swatches?studioId=${f.studio.id}` }), expect: studioMember(200) },
+  { route: 'POST /api/swatches', call: f => ({ method: 'POST', path: '/api/swatches', body: planner.swatchBody(f) }), expect: studioDesigner(201) },
+  { route: 'GET /api/swatches/[id]', call: async f => ({ method: 'GET', path: `/api/swatches/${(await planner.swatch(f)).id}` }), expect: studioMember(200) },
+  { route: 'PATCH /api/swatches/[id]', call: async f => ({ method: 'PATCH', path: `/api/swatches/${(await planner.swatch(f)).id}`, body: { washed: true } }), expect: studioDesigner(200) },
+  { route: 'DELETE /api/swatches/[id]', call: async f => ({ method: 'DELETE', path: `/api/swatches/${(await planner.swatch(f)).id}` }), expect: studioDesigner(204) },
+  { route: 'GET /api/plans', call: f => ({ method: 'GET', path: `/api/plans?studioId=${f.studio.id}` }), expect: studioMember(200) },
+  { route: 'POST /api/plans', call: async f => ({ method: 'POST', path: '/api/plans', body: await planner.planBody(f) }), expect: studioDesigner(201) },
+  // A published plan each time: knitters see it, so their edits are refused (403), not hidden (404).
+  { route: 'GET /api/plans/[id]', call: async f => ({ method: 'GET', path: `/api/plans/${await planner.publishedPlan(f)}` }), expect: studioMember(200) },
+  { route: 'PATCH /api/plans/[id]', call: async f => ({ method: 'PATCH', path: `/api/plans/${await planner.publishedPlan(f)}`, body: { name: 'Renamed plan' } }), expect: studioDesigner(200) },
+  { route: 'DELETE /api/plans/[id]', call: async f => ({ method: 'DELETE', path: `/api/plans/${await planner.publishedPlan(f)}` }), expect: studioDesigner(204) },
+  { route: 'POST /api/plans/[id]/projects', call: async f => ({ method: 'POST', path: `/api/plans/${await planner.publishedPlan(f)}/projects`, body: {} }), expect: studioMember(201) },
   { route: 'GET /api/invitations/[token]', call: async f => ({ method: 'GET', path: `/api/invitations/${await freshInvitation(f)}` }), expect: same(200) },
   {
     // The link is the secret; an address with no account gets one on accepting.
@@ -152,6 +173,33 @@ async function newProjectForm(f: Fixture) {
     studioId: f.studio.id, name: 'Matrix jumper', motifId: stock.motif.id, borderBefore: 4, borderAfter: 2, chartRows: 8,
     needles: 60, technique: 'together', mainYarnId: stock.main.id, contrastYarnId: stock.contrast.id, pieces: [{ name: 'Back' }],
   }
+}
+
+// Planner fixtures through the models (the routes under test are called by the rows).
+const planner = {
+  yarnBody: (f: Fixture) => ({ studioId: f.studio.id, name: 'Matrix yarn', hex: '#335577', weightCategory: 1, metresPer100g: 400 }),
+  yarn: (f: Fixture) => Yarn.create({ studioId: f.studio.id, name: 'Matrix yarn', hex: '#335577', weightCategory: 1, metresPer100g: 400 }),
+  machineBody: (f: Fixture) => ({ studioId: f.studio.id, name: 'Matrix machine', needlePitchMm: 4.5, needles: 200, patterningWidth: 24 }),
+  machine: (f: Fixture) => Machine.create({ studioId: f.studio.id, name: 'Matrix machine', needlePitchMm: 4.5, needles: 200, patterningWidth: 24 }),
+  swatchBody: (f: Fixture) => ({ studioId: f.studio.id, stitches: 30, rows: 40, width: 10, height: 10, unit: 'cm', grams: 6 }),
+  swatch: (f: Fixture) => Swatch.create({ studioId: f.studio.id, machineId: null, mainYarnId: null, contrastYarnId: null, stitches: 30, rows: 40, width: 10, height: 10, unit: 'cm', grams: 6 }),
+  async planBody(f: Fixture) {
+    stock ??= await makeStock(f.studio.id)
+    const [machine, swatch] = [await planner.machine(f), await planner.swatch(f)]
+    return {
+      studioId: f.studio.id, name: 'Matrix plan', machineId: machine.id, swatchId: swatch.id,
+      yarns: [{ slot: 'A', yarnId: stock.main.id }, { slot: 'B', yarnId: stock.contrast.id }],
+      pieces: [{ name: 'Back', targetWidth: 20, targetLength: 10, sections: [{ kind: 'plain', rows: 4, yarn: 'A' }, { kind: 'motif', motifId: stock.motif.id, placement: 'centred', chartRows: 8, main: 'A', contrast: 'B' }] }],
+    }
+  },
+  async publishedPlan(f: Fixture) {
+    const { studioId, pieces, ...fields } = await planner.planBody(f)
+    const plan = await Plan.create({ studioId, ...fields, published: true, createdBy: f.designer.id, updatedBy: f.designer.id })
+    for (const [i, p] of pieces.entries()) {
+      await PlanPiece.create({ planId: plan.id, position: i + 1, copies: 1, unit: 'cm', ease: 0, ...p, sections: p.sections as PlanSection[] })
+    }
+    return plan.id
+  },
 }
 
 let f: Fixture

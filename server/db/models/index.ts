@@ -11,10 +11,12 @@ import { Motif } from './motif'
 import { Project } from './project'
 import { Piece } from './piece'
 import { RowEvent } from './rowEvent'
+import { Swatch } from './swatch'
+import { Plan, PlanPiece } from './plan'
 
-export { User, Studio, Membership, Invitation, PasswordReset, SignInFailure, Machine, Yarn, Motif, Project, Piece, RowEvent }
+export { User, Studio, Membership, Invitation, PasswordReset, SignInFailure, Machine, Yarn, Motif, Project, Piece, RowEvent, Swatch, Plan, PlanPiece }
 
-const models = [User, Studio, Membership, Invitation, PasswordReset, SignInFailure, Machine, Yarn, Motif, Project, Piece, RowEvent]
+const models = [User, Studio, Membership, Invitation, PasswordReset, SignInFailure, Machine, Yarn, Motif, Project, Piece, RowEvent, Swatch, Plan, PlanPiece]
 
 /** Binds every model to one Sequelize instance (once per instance). */
 export function initModels(sequelize: Sequelize) {
@@ -30,4 +32,7 @@ export function initModels(sequelize: Sequelize) {
   RowEvent.belongsTo(Piece, { foreignKey: 'pieceId' })
   Motif.belongsTo(User, { foreignKey: 'createdBy', as: 'creator', constraints: false })
   Motif.belongsTo(User, { foreignKey: 'updatedBy', as: 'editor', constraints: false })
+  Plan.hasMany(PlanPiece, { foreignKey: 'planId', as: 'pieces' })
+  Plan.belongsTo(User, { foreignKey: 'createdBy', as: 'creator', constraints: false })
+  Plan.belongsTo(User, { foreignKey: 'updatedBy', as: 'editor', constraints: false })
 }

@@ -1,0 +1,12 @@
+import { idParams } from '../../../shared/validation/knit'
+import { machinePatch } from '../../../shared/validation/plan'
+import { Machine } from '../../db/models'
+
+export default defineEventHandler(async (event) => {
+  await requireUser(event)
+  const { id } = paramsValid(event, idParams)
+  const { row } = await requireStudioRow(event, Machine, id, 'designer', 'Machine')
+  const body = await readValid(event, machinePatch)
+  await row.update(body)
+  return machineItem(row)
+})

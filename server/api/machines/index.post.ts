@@ -1,0 +1,13 @@
+import { studioRef } from '../../../shared/validation/knit'
+import { machineBody } from '../../../shared/validation/plan'
+import { Machine } from '../../db/models'
+
+export default defineEventHandler(async (event) => {
+  await requireUser(event)
+  const { studioId } = await readValid(event, studioRef)
+  await requireStudioRole(event, studioId, 'designer')
+  const body = await readValid(event, machineBody)
+  const machine = await Machine.create(body)
+  setResponseStatus(event, 201)
+  return machineItem(machine)
+})

@@ -1,0 +1,9 @@
+import { idParams } from '../../../shared/validation/knit'
+
+// The plan with the engine's numbers per piece, warnings and the yarn estimate against stock.
+export default defineEventHandler(async (event) => {
+  await requireUser(event)
+  const { id } = paramsValid(event, idParams)
+  const { plan } = await requirePlan(event, id)
+  return planDetail(plan)
+})

@@ -1,0 +1,13 @@
+import { idParams } from '../../../shared/validation/knit'
+import { planPatch } from '../../../shared/validation/plan'
+
+// Any field, including `published`; `pieces` replaces every piece.
+export default defineEventHandler(async (event) => {
+  const user = await requireUser(event)
+  const { id } = paramsValid(event, idParams)
+  const { plan } = await requirePlan(event, id, 'designer')
+  const body = await readValid(event, planPatch)
+  await checkPlanRefs(plan.studioId, body)
+  await updatePlan(plan, body, user.id)
+  return loadPlanDetail(plan.id)
+})

@@ -1,0 +1,13 @@
+import { idParams } from '../../../../shared/validation/knit'
+import { planProjectBody } from '../../../../shared/validation/plan'
+
+// Any member who can see the published plan starts a project from it and knits it.
+export default defineEventHandler(async (event) => {
+  const user = await requireUser(event)
+  const { id } = paramsValid(event, idParams)
+  const { plan } = await requirePlan(event, id)
+  const body = await readValid(event, planProjectBody)
+  const projectId = await startProjectFromPlan(plan, body, user.id)
+  setResponseStatus(event, 201)
+  return loadProjectDetail(projectId)
+})

@@ -1,0 +1,13 @@
+import { studioRef } from '../../../shared/validation/knit'
+import { planBody } from '../../../shared/validation/plan'
+
+export default defineEventHandler(async (event) => {
+  const user = await requireUser(event)
+  const { studioId } = await readValid(event, studioRef)
+  await requireStudioRole(event, studioId, 'designer')
+  const body = await readValid(event, planBody)
+  await checkPlanRefs(studioId, body)
+  const id = await createPlan(body, user.id)
+  setResponseStatus(event, 201)
+  return loadPlanDetail(id)
+})

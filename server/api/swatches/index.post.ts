@@ -1,0 +1,14 @@
+import { studioRef } from '../../../shared/validation/knit'
+import { swatchBody } from '../../../shared/validation/plan'
+import { Swatch } from '../../db/models'
+
+export default defineEventHandler(async (event) => {
+  await requireUser(event)
+  const { studioId } = await readValid(event, studioRef)
+  await requireStudioRole(event, studioId, 'designer')
+  const body = await readValid(event, swatchBody)
+  await checkSwatchRefs(studioId, body)
+  const swatch = await Swatch.create(body)
+  setResponseStatus(event, 201)
+  return swatchItem(swatch)
+})

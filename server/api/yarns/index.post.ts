@@ -1,0 +1,13 @@
+import { studioRef } from '../../../shared/validation/knit'
+import { yarnBody } from '../../../shared/validation/plan'
+import { Yarn } from '../../db/models'
+
+export default defineEventHandler(async (event) => {
+  await requireUser(event)
+  const { studioId } = await readValid(event, studioRef)
+  await requireStudioRole(event, studioId, 'designer')
+  const body = await readValid(event, yarnBody)
+  const yarn = await Yarn.create(body)
+  setResponseStatus(event, 201)
+  return yarnItem(yarn)
+})

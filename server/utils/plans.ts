@@ -1,0 +1,247 @@
+import type { H3Event } from 'h3'
+import type { Transaction } from 'sequelize'
+import { distinguishable, estimateYarn, KnittingInputError, type YarnEstimate } from '../../shared/knitting'
+import { pieceTimelinePlan } from '../../shared/knit/timeline'
+import { planSlotYarns, workPlanPiece, type PlanMotif, type WorkedPlanPiece } from '../../shared/knit/planPiece'
+import type { PlanDetail, PlanPerson, PlanPiece as PlanPieceView, PlanSummary, PlanWarning, PlanYarnNeed } from '../../shared/types/plan'
+import { roleRank, type StudioRole } from '../../shared/types/studio'
+import type { PlanBody, PlanPatch, PlanProjectBody } from '../../shared/validation/plan'
+import { Machine, Membership, Motif, Plan, PlanPiece, Swatch, User, Yarn } from '../db/models'
+import { insertProject } from '../db/projects'
+
+// Plans: owners and designers see and write every plan of their studio; knitters see the
+// published ones (and start projects from them). Anything else is a 404.
+
+const people = [
+  { model: User, as: 'creator', attributes: ['id', 'name'] },
+  { model: User, as: 'editor', attributes: ['id', 'name'] },
+]
+const withPieces = [...people, { model: PlanPiece, as: 'pieces' }]
+
+export async function requirePlan(event: H3Event, id: number, least: StudioRole = 'knitter') {
+  const user = await requireUser(event)
+  const plan = await Plan.findByPk(id, { include: withPieces })
+  const role = plan && (await Membership.findOne({ where: { studioId: plan.studioId, userId: user.id }, attributes: ['role'] }))?.role
+  if (!plan || !role || (role === 'knitter' && !plan.published)) throw createError({ statusCode: 404, message: 'Plan not found' })
+  if (roleRank[role] < roleRank[least]) throw createError({ statusCode: 403, message: `This needs the ${least} role in this studio` })
+  return { user, plan, role }
+}
+
+const person = (u: User | null | undefined): PlanPerson | null => (u ? { id: u.id, name: u.name } : null)
+const iso = (d: Date) => new Date(d).toISOString()
+const sortedPieces = (plan: Plan) => [...(plan.pieces ?? [])].sort((a, b) => a.position - b.position || a.id - b.id)
+
+export function planSummary(plan: Plan): PlanSummary {
+  return {
+    id: plan.id, studioId: plan.studioId, name: plan.name, machineId: plan.machineId, swatchId: plan.swatchId,
+    yarns: plan.yarns, floatLimit: plan.floatLimit, published: !!plan.published, pieceCount: plan.pieces?.length ?? 0,
+    createdBy: person(plan.creator), updatedBy: person(plan.editor), createdAt: iso(plan.createdAt), updatedAt: iso(plan.updatedAt),
+  }
+}
+
+export async function listPlans(studioId: number, role: StudioRole): Promise<PlanSummary[]> {
+  const where = role === 'knitter' ? { studioId, published: true } : { studioId }
+  const plans = await Plan.findAll({ where, include: [...people, { model: PlanPiece, as: 'pieces', attributes: ['id'] }], order: [['updatedAt', 'DESC'], ['id', 'DESC']] })
+  return plans.map(planSummary)
+}
+
+/** Machine, swatch, yarns and motifs a plan names must be its studio's: a 400 naming the field otherwise. */
+export async function checkPlanRefs(studioId: number, body: PlanPatch) {
+  await requireInStudio(studioId, [
+    { field: 'machineId', model: Machine as never, id: body.machineId },
+    { field: 'swatchId', model: Swatch as never, id: body.swatchId },
+    ...(body.yarns ?? []).map((y, i) => ({ field: `yarns.${i}.yarnId`, model: Yarn as never, id: y.yarnId })),
+    ...(body.pieces ?? []).flatMap((p, i) => p.sections.map((s, j) => ({
+      field: `pieces.${i}.sections.${j}.motifId`, model: Motif as never, id: s.kind === 'motif' ? s.motifId : null,
+    }))),
+  ])
+}
+
+async function writePieces(planId: number, pieces: PlanBody['pieces'], transaction: Transaction) {
+  await PlanPiece.destroy({ where: { planId }, transaction })
+  for (const [i, p] of pieces.entries()) await PlanPiece.create({ planId, position: i + 1, ...p }, { transaction })
+}
+
+export async function createPlan(body: PlanBody, userId: number): Promise<number> {
+  const { pieces, ...fields } = body
+  return useDb().transaction(async (transaction) => {
+    const plan = await Plan.create({ ...fields, createdBy: userId, updatedBy: userId }, { transaction })
+    await writePieces(plan.id, pieces, transaction)
+    return plan.id
+  })
+}
+
+export async function updatePlan(plan: Plan, body: PlanPatch, userId: number) {
+  const { pieces, ...fields } = body
+  await useDb().transaction(async (transaction) => {
+    await plan.update({ ...fields, updatedBy: userId }, { transaction })
+    if (pieces) await writePieces(plan.id, pieces, transaction)
+    plan.changed('updatedAt', true)
+    await plan.save({ transaction })
+  })
+}
+
+/** Everything the plan's numbers need, loaded once. */
+async function planInputs(plan: Plan) {
+  const pieces = sortedPieces(plan)
+  const motifIds = [...new Set(pieces.flatMap(p => p.sections.flatMap(s => (s.kind === 'motif' ? [s.motifId] : []))))]
+  const [machine, swatch, yarns, motifs] = await Promise.all([
+    plan.machineId ? Machine.findByPk(plan.machineId) : null,
+    plan.swatchId ? Swatch.findByPk(plan.swatchId) : null,
+    Yarn.findAll({ where: { id: plan.yarns.map(y => y.yarnId), studioId: plan.studioId } }),
+    Motif.findAll({ where: { id: motifIds, studioId: plan.studioId } }),
+  ])
+  const stock = new Map(yarns.map(y => [y.id, y]))
+  const slots = plan.yarns.flatMap(y => (stock.has(y.yarnId) ? [{ ...y, yarn: stock.get(y.yarnId)! }] : []))
+  const motifMap = new Map<number, PlanMotif>(motifs.map(m => [m.id, { name: m.name, chart: motifChartRows(m) }]))
+  return { pieces, machine, swatch, slots, motifMap }
+}
+
+type Inputs = Awaited<ReturnType<typeof planInputs>>
+
+function workPieces(plan: Plan, inp: Inputs, warnings: PlanWarning[]) {
+  if (!inp.swatch) warnings.push({ kind: 'no-gauge', message: 'Choose a swatch: needles and rows come from its gauge' })
+  const gauge = inp.swatch ? swatchEngineGauge(inp.swatch) : null
+  return inp.pieces.map((p, i): WorkedPlanPiece | null => {
+    if (!gauge) return null
+    try {
+      return workPlanPiece(p, {
+        gauge, technique: inp.machine?.technique ?? 'together', passesPerColour: inp.machine?.passesPerColour ?? 2,
+        yarns: inp.slots.map(s => ({ slot: s.slot, name: s.yarn.name, hex: s.yarn.hex })), motifs: inp.motifMap, floatLimit: plan.floatLimit,
+      })
+    }
+    catch (e) {
+      if (!(e instanceof KnittingInputError)) throw e
+      warnings.push({ kind: 'section', piece: i, message: `${p.name}: ${e.message}` })
+      return null
+    }
+  })
+}
+
+function pieceWarnings(plan: Plan, inp: Inputs, worked: (WorkedPlanPiece | null)[], warnings: PlanWarning[]) {
+  const hex = new Map(inp.slots.map(s => [s.slot, s.yarn.hex]))
+  const pairsSeen = new Set<string>()
+  worked.forEach((w, i) => {
+    const piece = inp.pieces[i]!
+    if (!w) return
+    const widest = Math.max(w.needles, ...w.sections.map(s => s.shaping?.stitchesAfter ?? 0))
+    if (inp.machine && widest > inp.machine.needles) {
+      warnings.push({ kind: 'needles-over-bed', piece: i, message: `${piece.name}: ${widest} needles, ${inp.machine.name} has ${inp.machine.needles}` })
+    }
+    piece.sections.forEach((s, j) => {
+      if (s.kind !== 'motif') return
+      const n = w.sections[j]!
+      const longest = Math.max(...(n.maxFloat ?? [0, 0]))
+      if (longest > plan.floatLimit) {
+        warnings.push({ kind: 'long-floats', piece: i, section: j, message: `${piece.name}: floats of ${longest} stitches, over the plan's limit of ${plan.floatLimit}` })
+      }
+      if (inp.machine && n.placement && n.placement.chartWidth > inp.machine.patterningWidth) {
+        warnings.push({ kind: 'repeat-over-patterning-width', piece: i, section: j, message: `${piece.name}: the motif is ${n.placement.chartWidth} stitches wide, ${inp.machine.name} patterns ${inp.machine.patterningWidth}` })
+      }
+      const key = `${s.main}${s.contrast}`
+      const a = hex.get(s.main)
+      const b = hex.get(s.contrast)
+      if (a && b && !pairsSeen.has(key)) {
+        pairsSeen.add(key)
+        const d = distinguishable(a, b)
+        if (d.verdict !== 'clear') warnings.push({ kind: 'colours-close', piece: i, section: j, message: `Slots ${s.main} and ${s.contrast}: ${d.reason}` })
+      }
+    })
+  })
+}
+
+/** Yarn per slot over every piece × copies (estimateYarn per section, each with its own offset). */
+function planEstimate(inp: Inputs, worked: (WorkedPlanPiece | null)[], warnings: PlanWarning[]): PlanDetail['estimate'] {
+  const sw = inp.swatch
+  if (!sw || !inp.machine || sw.grams == null) {
+    warnings.push({ kind: 'no-estimate', message: 'The yarn estimate needs a machine and a weighed swatch' })
+    return null
+  }
+  if (worked.some(w => !w)) return null
+  const grist = Object.fromEntries(inp.slots.map(s => [s.slot, { metresPer100g: Number(s.yarn.metresPer100g) }]))
+  const totals = new Map<string, { grams: number; metres: number; floatGrams: number }>()
+  let model = ''
+  worked.forEach((w, i) => {
+    const copies = inp.pieces[i]!.copies
+    const engine = pieceTimelinePlan(w!.timeline)
+    engine.sections.forEach((section, j) => {
+      const e: YarnEstimate = estimateYarn({
+        plan: { ...engine, sections: [section] }, placement: { needles: w!.needles, offset: w!.offsets[j] },
+        swatch: { stitches: sw.stitches * sw.rows, grams: Number(sw.grams) }, needlePitchMm: Number(inp.machine!.needlePitchMm), yarns: grist,
+      })
+      model = e.model
+      for (const y of e.yarns) {
+        const t = totals.get(y.yarn) ?? { grams: 0, metres: 0, floatGrams: 0 }
+        totals.set(y.yarn, { grams: t.grams + y.grams * copies, metres: t.metres + y.metres * copies, floatGrams: t.floatGrams + y.floatGrams * copies })
+      }
+    })
+  })
+  const yarns: PlanYarnNeed[] = inp.slots.filter(s => totals.has(s.slot)).map((s) => {
+    const t = totals.get(s.slot)!
+    const onHand = Number(s.yarn.gramsOnHand)
+    if (t.grams > onHand) warnings.push({ kind: 'low-stock', message: `${s.yarn.name} (slot ${s.slot}): about ${Math.ceil(t.grams)} g needed, ${onHand} g on hand` })
+    return { slot: s.slot, yarnId: s.yarnId, name: s.yarn.name, hex: s.yarn.hex, ...t, gramsOnHand: onHand, low: t.grams > onHand }
+  })
+  return { model: `${model} Shaping rows are counted at the cast-on width; each piece is counted once per copy.`, yarns }
+}
+
+export async function planDetail(plan: Plan): Promise<PlanDetail> {
+  const inp = await planInputs(plan)
+  const warnings: PlanWarning[] = []
+  const worked = workPieces(plan, inp, warnings)
+  pieceWarnings(plan, inp, worked, warnings)
+  const estimate = planEstimate(inp, worked, warnings)
+  const main = inp.slots.find(s => s.slot === 'A')
+  const pieces: PlanPieceView[] = inp.pieces.map((p, i) => {
+    const w = worked[i]
+    return {
+      id: p.id, position: p.position, name: p.name, copies: p.copies, targetWidth: Number(p.targetWidth), targetLength: Number(p.targetLength),
+      unit: p.unit, ease: Number(p.ease), sections: p.sections,
+      numbers: w ? { needles: w.needles, targetRows: w.targetRows, plannedRows: w.plannedRows, machineRows: w.machineRows, colourChanges: w.colourChanges, sections: w.sections } : null,
+    }
+  })
+  return {
+    ...planSummary(plan),
+    notes: plan.notes,
+    pieces,
+    gauge: inp.swatch ? swatchGauge(inp.swatch) : null,
+    warnings,
+    contrast: main ? inp.slots.filter(s => s !== main).map(s => ({ slots: [main.slot, s.slot] as [string, string], ...distinguishable(main.yarn.hex, s.yarn.hex) })) : [],
+    estimate,
+  }
+}
+
+export async function loadPlanDetail(id: number) {
+  return planDetail((await Plan.findByPk(id, { include: withPieces }))!)
+}
+
+/**
+ * A project from a published plan: each chosen piece (× its copies) gets the timeline worked out
+ * now, frozen in the project, so later plan edits move nobody's row. Returns the project id.
+ */
+export async function startProjectFromPlan(plan: Plan, body: PlanProjectBody, knitterId: number): Promise<number> {
+  if (!plan.published) throw createError({ statusCode: 409, message: 'Publish the plan before starting a project from it' })
+  const inp = await planInputs(plan)
+  const warnings: PlanWarning[] = []
+  const worked = workPieces(plan, inp, warnings)
+  const chosen = body.pieces ?? inp.pieces.map((_, i) => i)
+  const bad = chosen.find(i => i >= inp.pieces.length)
+  if (bad !== undefined) throw fieldError('pieces', `the plan has no piece ${bad} (it has ${inp.pieces.length})`)
+  const blocker = warnings.find(w => w.kind === 'no-gauge' || (w.kind === 'section' && chosen.includes(w.piece!)))
+  if (blocker) throw createError({ statusCode: 409, message: `The plan cannot be knitted yet: ${blocker.message}` })
+  const yarns = planSlotYarns(inp.slots.map(s => ({ slot: s.slot, name: s.yarn.name, hex: s.yarn.hex })))
+    .map(y => ({ ...y, yarnId: inp.slots.find(s => s.slot === y.slot)!.yarnId }))
+  const pieces = chosen.flatMap((i) => {
+    const p = inp.pieces[i]!
+    const name = (k: number) => (p.copies > 1 ? `${p.name} ${k + 1} of ${p.copies}` : p.name)
+    return Array.from({ length: p.copies }, (_, k) => ({ name: name(k), timeline: worked[i]!.timeline }))
+  })
+  const firstMotif = inp.pieces.flatMap(p => p.sections).find(s => s.kind === 'motif')
+  const motifId = firstMotif?.kind === 'motif' ? firstMotif.motifId : null
+  const project = await useDb().transaction(transaction => insertProject({
+    studioId: plan.studioId, knitterId, name: body.name ?? plan.name, machineId: plan.machineId, motifId,
+    motifName: motifId ? inp.motifMap.get(motifId)?.name : undefined, yarns, notes: body.notes ?? plan.notes,
+    source: 'plan', plan: { id: plan.id, name: plan.name }, pieces,
+  }, transaction))
+  return project.id
+}
