@@ -14,7 +14,10 @@ const { ensureBuild } = await import('./lib/build.mjs')
 const { startMailFake } = await import('./lib/mail-fake.mjs')
 const { start } = await import('./lib/run.mjs')
 
+const { assertPortFree } = await import('./lib/ports.mjs')
+
 const port = Number(process.env.PORT ?? 3000)
+await assertPortFree(port, 'the app', 'PORT')
 const { env, stop: stopDatabase } = await prepareDatabase(root, { database: 'floatwise' })
 ensureBuild(root)
 
@@ -23,7 +26,9 @@ if (process.env.SMTP_URL) {
   env.NUXT_SMTP_URL = process.env.SMTP_URL
 }
 else {
-  mail = await startMailFake(join(root, '.data/mail'), Number(process.env.FLOATWISE_MAIL_PORT ?? 2526))
+  const mailPort = Number(process.env.FLOATWISE_MAIL_PORT ?? 2526)
+  await assertPortFree(mailPort, 'the local mail fake', 'FLOATWISE_MAIL_PORT')
+  mail = await startMailFake(join(root, '.data/mail'), mailPort)
   Object.assign(env, { NUXT_SMTP_URL: mail.url, NUXT_MAIL_CAPTURE_DIR: join(root, '.data/mail'), NUXT_DEV_MAIL: 'true' })
 }
 

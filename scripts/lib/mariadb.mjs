@@ -2,6 +2,7 @@ import { existsSync, mkdirSync, readFileSync } from 'node:fs'
 import { spawn } from 'node:child_process'
 import { log } from './log.mjs'
 import { capture, run, which } from './run.mjs'
+import { assertPortFree } from './ports.mjs'
 
 /**
  * A private MariaDB server from Debian's packages: its own data directory under .data/,
@@ -34,6 +35,7 @@ export function privateMariadb(root, port = Number(process.env.FLOATWISE_DB_PORT
       log('Initialising the private MariaDB data directory…')
       run(which('mariadb-install-db'), ['--no-defaults', '--user=root', `--datadir=${base}/data`, '--skip-test-db', '--skip-name-resolve', '--auth-root-authentication-method=socket'], { stdio: ['ignore', 'ignore', 'inherit'] })
     }
+    await assertPortFree(port, 'the private MariaDB', 'FLOATWISE_DB_PORT')
     log(`Starting MariaDB on 127.0.0.1:${port}…`)
     const child = spawn(which('mariadbd'), [
       '--no-defaults', '--user=root', `--datadir=${base}/data`, '--bind-address=127.0.0.1', `--port=${port}`,
