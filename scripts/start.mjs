@@ -17,7 +17,9 @@ const { start } = await import('./lib/run.mjs')
 const { assertPortFree } = await import('./lib/ports.mjs')
 
 const port = Number(process.env.PORT ?? 3000)
+const mailPort = Number(process.env.FLOATWISE_MAIL_PORT ?? 2526)
 await assertPortFree(port, 'the app', 'PORT')
+if (!process.env.SMTP_URL) await assertPortFree(mailPort, 'the local mail fake', 'FLOATWISE_MAIL_PORT')
 const { env, stop: stopDatabase } = await prepareDatabase(root, { database: 'floatwise' })
 ensureBuild(root)
 
@@ -26,8 +28,6 @@ if (process.env.SMTP_URL) {
   env.NUXT_SMTP_URL = process.env.SMTP_URL
 }
 else {
-  const mailPort = Number(process.env.FLOATWISE_MAIL_PORT ?? 2526)
-  await assertPortFree(mailPort, 'the local mail fake', 'FLOATWISE_MAIL_PORT')
   mail = await startMailFake(join(root, '.data/mail'), mailPort)
   Object.assign(env, { NUXT_SMTP_URL: mail.url, NUXT_MAIL_CAPTURE_DIR: join(root, '.data/mail'), NUXT_DEV_MAIL: 'true' })
 }
