@@ -21,7 +21,13 @@ const mailPort = Number(process.env.FLOATWISE_MAIL_PORT ?? 2526)
 await assertPortFree(port, 'the app', 'PORT')
 if (!process.env.SMTP_URL) await assertPortFree(mailPort, 'the local mail fake', 'FLOATWISE_MAIL_PORT')
 const { env, stop: stopDatabase } = await prepareDatabase(root, { database: 'floatwise' })
-ensureBuild(root)
+try {
+  ensureBuild(root)
+}
+catch (error) {
+  stopDatabase() // a failed build leaves nothing running behind it
+  throw error
+}
 
 let mail
 if (process.env.SMTP_URL) {
