@@ -70,7 +70,8 @@ export async function syncDevice(userId: number, body: SyncBody): Promise<SyncAn
  */
 async function storeRowEvents(userId: number, deviceId: string, target: KnittablePiece, events: RowEventInput[]): Promise<Outcome[]> {
   try {
-    return await useDb().transaction(async (transaction) => {
+    let justFinished = false
+    const outcomes = await useDb().transaction(async (transaction) => {
       // Locking the project first serialises every step of its pieces, so the reads below see
       // the latest committed state (finishing the last piece is seen by exactly one step).
       const project = await Project.findByPk(target.projectId, { lock: transaction.LOCK.UPDATE, transaction, attributes: ['id', 'status', 'startedAt', 'finishedAt'] })
@@ -100,9 +101,12 @@ async function storeRowEvents(userId: number, deviceId: string, target: Knittabl
       })
       if (rows.length) await RowEvent.bulkCreate(rows, { transaction })
       const last = moved as { to: number; at: Date } | null
-      if (last) await movePiece(project!, piece!, last.to, deviceId, last.at, transaction)
+      if (last) justFinished = await movePiece(project!, piece!, last.to, deviceId, last.at, transaction)
       return outcomes
     })
+    // After the commit, so a mail never announces a finish that was rolled back.
+    if (justFinished) await mailProjectFinished(target.projectId)
+    return outcomes
   }
   catch (error) {
     // Two requests carrying the same new event: the second insert loses on the primary key.
@@ -122,8 +126,11 @@ function sameEvent(stored: RowEvent, userId: number, e: RowEventInput) {
   return stored.userId === userId && stored.pieceId === e.pieceId
 }
 
-/** The piece's new place (its version was already counted up per applied event), and the project's status. */
-async function movePiece(project: Project, piece: Piece, to: number, deviceId: string, now: Date, transaction: Transaction) {
+/**
+ * The piece's new place (its version was already counted up per applied event), and the project's
+ * status. True when this step finished the project.
+ */
+async function movePiece(project: Project, piece: Piece, to: number, deviceId: string, now: Date, transaction: Transaction): Promise<boolean> {
   const done = to >= piece.totalRows
   piece.completedRows = to
   piece.lastDeviceId = deviceId
@@ -138,9 +145,11 @@ async function movePiece(project: Project, piece: Piece, to: number, deviceId: s
   const othersOpen = done
     ? await Piece.count({ where: { projectId: project.id, id: { [Op.ne]: piece.id }, finishedAt: null }, transaction })
     : 1
+  let finished = false
   if (othersOpen === 0 && project.status !== 'finished') {
     project.status = 'finished'
     project.finishedAt = now
+    finished = true
   }
   else if (othersOpen > 0 && project.status === 'finished') {
     // A finished piece was taken back (unravelled rows): the project is being knitted again.
@@ -148,6 +157,7 @@ async function movePiece(project: Project, piece: Piece, to: number, deviceId: s
     project.finishedAt = null
   }
   if (project.changed()) await project.save({ transaction })
+  return finished
 }
 
 /** The piece's authoritative place, and whether this device's latest step on it is a standing conflict. */

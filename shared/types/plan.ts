@@ -193,3 +193,26 @@ export interface PlanDetail extends PlanSummary {
   /** Null when the swatch has no weight or there is no swatch or machine. */
   estimate: { model: string; yarns: PlanYarnNeed[] } | null
 }
+
+/** GET /api/studios/:studioId/production: one project not yet finished, for owners and designers. */
+export interface ProductionItem {
+  projectId: number
+  name: string
+  status: 'planned' | 'knitting'
+  knitter: { id: number; name: string }
+  /** The plan it was started from, as named then; null for projects made another way. */
+  plan: { id: number; name: string } | null
+  pieceCount: number
+  piecesDone: number
+  completedRows: number
+  totalRows: number
+  /** completedRows / totalRows, 0–1. */
+  progress: number
+  lastKnittedAt: string | null
+  /** Median ms per row over the recent steps (pauses of 5 min or more left out); null with too few. */
+  msPerRow: number | null
+  /** "about 1 h 40 min" of knitting left at that pace, or null. */
+  timeLeft: string | null
+  /** Now + time left: knitting time only, so a guide rather than a date to promise. */
+  estimatedFinish: string | null
+}

@@ -1,6 +1,8 @@
+import { randomUUID } from 'node:crypto'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { signedIn, type ApiClient } from '../support/api'
 import { closeTestDb, fixturePassword, makeStudio } from '../support/db'
+import { linkIn, waitForMail } from '../support/mail'
 
 // The planner through the API: stock CRUD by role, the handbook examples end to end, a yarn
 // estimate worked by hand, and projects that keep a snapshot of the plan they started from.
@@ -47,12 +49,12 @@ describe('machines and yarn stock', () => {
   })
 
   it.each([
-    ['/api/machines', () => (machine({ needles: 0 })), 'needles'],
-    ['/api/machines', () => (machine({ needlePitchMm: -1 })), 'needlePitchMm'],
-    ['/api/machines', () => (machine({ patterningWidth: 201 })), 'patterningWidth'],
-    ['/api/yarns', () => (yarn({ hex: 'navy' })), 'hex'],
-    ['/api/yarns', () => (yarn({ weightCategory: 8 })), 'weightCategory'],
-    ['/api/yarns', () => (yarn({ metresPer100g: 0 })), 'metresPer100g'],
+    ['/api/machines', () => machine({ needles: 0 }), 'needles'],
+    ['/api/machines', () => machine({ needlePitchMm: -1 }), 'needlePitchMm'],
+    ['/api/machines', () => machine({ patterningWidth: 201 }), 'patterningWidth'],
+    ['/api/yarns', () => yarn({ hex: 'navy' }), 'hex'],
+    ['/api/yarns', () => yarn({ weightCategory: 8 }), 'weightCategory'],
+    ['/api/yarns', () => yarn({ metresPer100g: 0 }), 'metresPer100g'],
     ['/api/swatches', () => ({ studioId: 0 }), 'studioId'],
   ])('POST %s names the bad field (case %#)', async (path, body, field) => {
     const res = await as.designer.post(path, body())
@@ -258,5 +260,43 @@ describe('plans', () => {
     const bad = await as.knitter.post(`/api/plans/${plan.id}/projects`, { pieces: [3] })
     expect(bad.status).toBe(400)
     expect(bad.body.data.issues[0].path).toEqual(['pieces'])
+  })
+
+  it('production shows who knits what, how far, and a finish estimate from their pace', async () => {
+    const plan = await made(as.designer.post('/api/plans', handbookPlan({ name: 'Production jumper', published: true })))
+    const project = await made(as.knitter.post(`/api/plans/${plan.id}/projects`, {}))
+    const pieceId = project.pieces[0].id
+    // Five single rows 30 s apart → 30 s a row (common practice for the knit view's estimate).
+    const start = Date.now() - 10 * 60_000
+    const events = Array.from({ length: 5 }, (_, i) => ({
+      id: randomUUID(), pieceId, kind: 'advance', from: i, to: i + 1, version: i, at: new Date(start + i * 30_000).toISOString(),
+    }))
+    await made(as.knitter.post('/api/sync', { deviceId: 'production-test', events }), 200)
+
+    const list = await made(as.owner.get(`/api/studios/${s.studio.id}/production`), 200)
+    const row = list.find((x: any) => x.projectId === project.id)
+    expect(row).toMatchObject({
+      name: 'Production jumper', status: 'knitting', knitter: { id: s.knitter.id }, plan: { id: plan.id, name: 'Production jumper' },
+      pieceCount: 2, piecesDone: 0, completedRows: 5, totalRows: 680, msPerRow: 30_000,
+    })
+    expect(row.progress).toBeCloseTo(5 / 680, 9)
+    // 675 rows left × 30 s = 5 h 37 min 30 s → "about 5 h 38 min".
+    expect(row.timeLeft).toBe('about 5 h 38 min')
+    expect(Date.parse(row.estimatedFinish) - Date.now()).toBeGreaterThan(675 * 30_000 - 60_000)
+    expect((await as.knitter.get(`/api/studios/${s.studio.id}/production`)).status).toBe(403)
+  })
+
+  it('mails the studio owner when the last row of a project is knitted', async () => {
+    const plan = await made(as.designer.post('/api/plans', handbookPlan({
+      name: 'Tiny swatch bag', published: true, pieces: [{ name: 'Bag', targetWidth: 5, targetLength: 1, sections: [{ kind: 'plain', rows: 4, yarn: 'A' }] }],
+    })))
+    const project = await made(as.knitter.post(`/api/plans/${plan.id}/projects`, {}))
+    const step = { id: randomUUID(), pieceId: project.pieces[0].id, kind: 'advance', from: 0, to: 4, version: 0, at: new Date().toISOString() }
+    await made(as.knitter.post('/api/sync', { deviceId: 'finish-test', events: [step] }), 200)
+    const mail = await waitForMail(s.owner.email)
+    expect(mail.subject).toBe('Finished: Tiny swatch bag')
+    expect(mail.text).toContain(`${s.knitter.name} has finished "Tiny swatch bag": 1 piece (Bag), 4 machine rows.`)
+    expect(linkIn(mail, '/projects/').pathname).toBe(`/projects/${project.id}`)
+    expect((await as.owner.get(`/api/studios/${s.studio.id}/production`)).body.map((x: any) => x.projectId)).not.toContain(project.id)
   })
 })
