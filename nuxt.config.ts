@@ -60,6 +60,15 @@ export default defineNuxtConfig({
   routeRules: {
     '/**': { headers: securityHeaders },
   },
+  hooks: {
+    // Nitro types `$fetch('/api/…')` by matching the path against every route at compile time;
+    // with this many routes TypeScript overflows (TS2321, "excessive stack depth"). Calls name
+    // their answer type instead (`$fetch<PieceDetail>(…)`, `useFetch<…>`), so the route table
+    // is left out of the generated types.
+    'nitro:init': (nitro) => {
+      nitro.hooks.hook('types:extend', (types) => { types.routes = {} })
+    },
+  },
   nitro: {
     prerender: { routes: ['/'] },
     // Original motif pictures, keyed by motif id. The fs base is resolved against the

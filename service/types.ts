@@ -1,6 +1,11 @@
 // Plain data shapes the client keeps in IndexedDB and exchanges with `POST /api/sync`.
 // They mirror the server contract field for field so a row event is sent exactly as stored.
 
+// The server's shapes are the contract: one definition in shared/, used on both sides.
+import type { PieceDetail, SyncConflict } from '../shared/types/knit'
+
+export type { PieceDetail, SyncConflict }
+
 export type StepKind = 'advance' | 'back' | 'jump'
 
 /** One tap at the machine. `id` is made on the device, so a replayed batch is harmless. */
@@ -20,29 +25,6 @@ export interface RowEvent {
 /** A queued event; `seq` is auto-incremented so the outbox drains in device order. */
 export interface OutboxEntry extends RowEvent {
   seq?: number
-}
-
-/** The server's account of two devices that moved on separately. */
-export interface SyncConflict {
-  deviceId: string
-  theirs: number
-  ours: number
-}
-
-/** `GET /api/pieces/:id`; `timeline` is the server's business and is stored untouched. */
-export interface PieceDetail {
-  id: number
-  projectId: number
-  projectName: string
-  name: string
-  position: number
-  completedRows: number
-  totalRows: number
-  version: number
-  updatedAt: string
-  lastKnittedAt: string | null
-  timeline: unknown
-  nextPieceId: number | null
 }
 
 export interface CachedPiece extends PieceDetail {

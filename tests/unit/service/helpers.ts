@@ -9,12 +9,17 @@ export function freshDb(options: OpenOptions = {}): FloatwiseDb {
   return openFloatwiseDb(`floatwise-test-${++dbCounter}`, { indexedDB: new IDBFactory(), IDBKeyRange, ...options })
 }
 
+/** The store keeps the timeline as it is; a plain piece is enough for these tests. */
+export function plainTimeline(label: string, rows: number): PieceDetail['timeline'] {
+  return { technique: 'together', passesPerColour: 1, needles: 60, sections: [{ kind: 'plain', label, rows, yarn: 'A' }], yarns: [{ slot: 'A', name: 'Cream', hex: '#efe6d2', symbol: '●' }] }
+}
+
 export function pieceDetail(overrides: Partial<PieceDetail> = {}): PieceDetail {
   return {
     id: 1, projectId: 10, projectName: 'Yoke jumper', name: 'Back', position: 1,
     completedRows: 0, totalRows: 120, version: 0,
     updatedAt: '2025-01-01T00:00:00.000Z', lastKnittedAt: null,
-    timeline: { sections: [{ name: 'Welt', rows: 20 }] }, nextPieceId: 2,
+    timeline: plainTimeline('Welt', 120), nextPieceId: 2, finishedAt: null,
     ...overrides,
   }
 }

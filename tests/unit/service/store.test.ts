@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest'
 import { reactive } from 'vue'
 import { IDBFactory, IDBKeyRange } from 'fake-indexeddb'
 import { getDeviceId, openFloatwiseDb, readPieceState, recordStep, savePiece, StepError } from '../../../service'
-import { deviceWithPiece, freshDb, pieceDetail } from './helpers'
+import { deviceWithPiece, freshDb, pieceDetail, plainTimeline } from './helpers'
 
 describe('the database', () => {
   it('makes the device id once and keeps it across reopening', async () => {
@@ -35,7 +35,7 @@ describe('the database', () => {
 
   it('stores plain copies of Vue reactive values', async () => {
     const db = freshDb()
-    const detail = reactive(pieceDetail({ timeline: { sections: [{ name: 'Yoke', rows: 40 }] } }))
+    const detail = reactive(pieceDetail({ timeline: plainTimeline('Yoke', 40) }))
     await savePiece(db, detail)
     const { piece } = await readPieceState(db, 1)
     expect(piece?.timeline).toEqual({ sections: [{ name: 'Yoke', rows: 40 }] })
