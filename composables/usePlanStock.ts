@@ -6,6 +6,7 @@ export function usePlanStock<T extends { id: number }>(resource: 'machines' | 'y
   const account = useAccountStore()
   const studioId = computed(() => account.currentStudio?.id)
   const canEdit = computed(() => account.currentStudio?.role === 'owner' || account.currentStudio?.role === 'designer')
+  const isOwner = computed(() => account.currentStudio?.role === 'owner')
   const key = computed(() => `stock-${resource}-${studioId.value}`)
   const list = useFetch<T[]>(`/api/${resource}`, { key, query: { studioId }, immediate: !!studioId.value, watch: [studioId], default: () => [] })
   const form = useForm()
@@ -26,5 +27,5 @@ export function usePlanStock<T extends { id: number }>(resource: 'machines' | 'y
     return !!done
   }
 
-  return { studioId, canEdit, items: list.data, pending: list.pending, error: list.error, refresh: list.refresh, form, save, remove }
+  return { studioId, canEdit, isOwner, items: list.data, pending: list.pending, error: list.error, refresh: list.refresh, form, save, remove }
 }

@@ -40,6 +40,14 @@ describe('the planner', () => {
 
     await page.goto('/studio/stock')
     await page.waitForSelector('[data-test="machine-table"]')
+    // A refused field is named next to its input, in the server's words.
+    await page.click('[data-test="yarn-add"]')
+    await page.fill('[data-test="field-yarn-name"]', 'Not a colour')
+    await page.fill('[data-test="field-yarn-hex"]', 'red')
+    await page.click('[data-test="yarn-save"]')
+    await page.waitForSelector('[data-test="yarn-form"] .field-error')
+    expect(await page.textContent('[data-test="yarn-form"] .field-error')).toContain('#1a2b3c')
+    await page.click('[data-test="yarn-form"] >> text=Cancel')
     await page.click('[data-test="swatch-add"]')
     await page.waitForSelector('[data-test="swatch-form"]')
     await page.selectOption('[data-test="field-swatch-machine"]', { index: 1 })
@@ -74,6 +82,8 @@ describe('the planner', () => {
     await page.waitForSelector('[data-test="piece-needles"]')
     expect(await page.textContent('[data-test="piece-needles"]')).toBe('120')
 
+    await page.selectOption('[data-test="section-kind"]', 'motif')
+    await page.click('[data-test="section-add"]')
     await page.selectOption('[data-test="section-kind"]', 'shaping')
     await page.click('[data-test="section-add"]')
     const shaping = page.locator('[data-test="plan-section"][data-kind="shaping"]')
@@ -86,6 +96,9 @@ describe('the planner', () => {
     expect(Number(await page.textContent('[data-test="total-rows"]'))).toBeGreaterThan(60)
     await page.waitForSelector('[data-test="yarn-estimate"]')
     expect(await page.textContent('[data-test="yarn-estimate"]')).toContain('Cream')
+    expect(await page.textContent('[data-test="yarn-estimate"]')).toContain('Ink blue')
+    expect(await page.textContent('[data-test="plan-section"][data-kind="motif"] [data-test="section-numbers"]')).toMatch(/\d+ full repeats of \d+/)
+    expect(Number(await page.textContent('[data-test="total-changes"]'))).toBeGreaterThan(0)
     await screenshot(page, 'planner-landscape')
     await page.locator('[data-test="plan-section"][data-kind="shaping"]').scrollIntoViewIfNeeded()
     await screenshot(page, 'planner-piece-landscape')
@@ -99,7 +112,8 @@ describe('the planner', () => {
 
     await page.click('[data-test="plan-publish"]')
     await page.waitForFunction(() => document.querySelector('[data-test="plan-state"]')?.textContent?.trim() === 'published')
-    expect(errors.filter(e => !e.includes('status of 401'))).toEqual([]) // the sign-in page asks who is signed in first
+    // The sign-in page asks who is signed in first (401); the refused yarn above is a 400.
+    expect(errors.filter(e => !/status of 40[01]/.test(e))).toEqual([])
     await context.close()
   })
 
