@@ -308,7 +308,7 @@ describe('the library', () => {
     const page = await open(context, designer, '/motifs')
     await page.waitForSelector('[data-test="motif-table"]')
     const names = () => page.$$eval('[data-test="motif-row"]', rows => rows.map(r => r.getAttribute('data-name')))
-    const demo = ['Heron steps (draft)', 'Lantern medallion', 'Marsh wave', 'Pebble check']
+    const demo = ['Heron steps', 'Lantern medallion', 'Marsh wave', 'Pebble check']
     expect((await names()).filter(n => demo.includes(n!))).toEqual(demo)
     await screenshot(page, 'motif-library-portrait')
     expect(await axeSerious(page), 'library').toEqual([])
@@ -361,7 +361,7 @@ describe('the library', () => {
     await page.waitForSelector('[data-test="motif-table"]')
     const names = await page.$$eval('[data-test="motif-row"]', rows => rows.map(r => r.getAttribute('data-name')))
     expect(names).toEqual(expect.arrayContaining(['Lantern medallion', 'Marsh wave', 'Pebble check']))
-    expect(names).not.toContain('Heron steps (draft)')
+    expect(names).not.toContain('Heron steps')
     await screenshot(page, 'motif-library-knitter-landscape')
     for (const control of ['motif-new', 'motif-import', 'motif-from-picture', 'motif-duplicate', 'motif-delete']) {
       expect(await page.locator(`[data-test="${control}"]`).count(), control).toBe(0)

@@ -39,7 +39,7 @@ export const demoMotifs = [
     name: 'Lantern medallion', published: true,
     rows: ['............', '.....xx.....', '....xxxx....', '...xx..xx...', '..xx....xx..', '...xx..xx...', '....xxxx....', '.....xx.....'],
   },
-  { name: 'Heron steps (draft)', published: false, rows: ['xxx...', '.xxx..', '..xxx.', '...xxx', 'x...xx', 'xx...x'] },
+  { name: 'Heron steps', published: false, rows: ['xxx...', '.xxx..', '..xxx.', '...xxx', 'x...xx', 'xx...x'] },
 ]
 
 /** Adds the demo studio once; a second run finds the owner and changes nothing. */
