@@ -38,7 +38,7 @@ describe('the database', () => {
     const detail = reactive(pieceDetail({ timeline: plainTimeline('Yoke', 40) }))
     await savePiece(db, detail)
     const { piece } = await readPieceState(db, 1)
-    expect(piece?.timeline).toEqual({ sections: [{ name: 'Yoke', rows: 40 }] })
+    expect(piece?.timeline).toEqual(plainTimeline('Yoke', 40))
   })
 })
 
