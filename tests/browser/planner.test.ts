@@ -61,6 +61,8 @@ describe('the planner', () => {
     await page.fill('#swatch-weight', '12')
     // 30 stitches over 10 cm: 30.5 per 4 in, so 1 Super Fine (common practice: CYC table).
     expect(await page.textContent('[data-test="swatch-preview"]')).toContain('30.0 stitches × 40.0 rows per 10 cm')
+    await page.locator('[data-test="swatch-form"]').scrollIntoViewIfNeeded()
+    await screenshot(page, 'planner-swatch-form-landscape')
     await page.click('[data-test="swatch-save"]')
     await page.waitForSelector(`[data-test="swatch-row"]:has-text("${stitchSize}")`)
     const row = await page.textContent(`[data-test="swatch-row"]:has-text("${stitchSize}")`)
