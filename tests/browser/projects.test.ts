@@ -15,8 +15,12 @@ describe('projects', () => {
     await page.waitForURL(url => url.pathname === '/login') // sent to sign in first, coming back after
     await signIn(page, 'knitter@floatwise.test')
     await page.waitForSelector('[data-test="project-list"]')
-    // The demo jumper's front is on the needles: the page offers to carry on with it.
-    expect(await page.textContent('[data-test="resume-piece"]')).toContain('Marsh wave jumper · Front')
+    // The page offers to carry on with the piece knitted most recently (other test files knit
+    // pieces of their own as this knitter, so ask the server which one that is).
+    const pieces = await page.evaluate(() => fetch('/api/pieces').then(r => r.json())) as { projectName: string; name: string; completedRows: number; totalRows: number; lastKnittedAt: string | null }[]
+    const latest = pieces.find(p => p.completedRows < p.totalRows && p.lastKnittedAt)!
+    expect(await page.textContent('[data-test="resume-piece"]')).toContain(`${latest.projectName} · ${latest.name}`)
+    expect(await page.textContent('[data-test="project-list"]')).toContain('Marsh wave jumper')
     await screenshot(page, 'projects-portrait')
 
     await page.click('[data-test="new-project"]')
