@@ -94,18 +94,9 @@ export interface KnitterPiece {
   finishedAt: string | null
 }
 
-export interface PieceDetail {
-  id: number
-  projectId: number
-  projectName: string
-  name: string
-  position: number
-  completedRows: number
-  totalRows: number
-  version: number
+/** GET /api/pieces/:id: a piece with everything the knit view needs to show it offline. */
+export interface PieceDetail extends KnitterPiece {
   updatedAt: string
-  lastKnittedAt: string | null
-  finishedAt: string | null
   timeline: PieceTimeline
   /** The next unfinished piece of the same project (after this one, else the first before it). */
   nextPieceId: number | null
