@@ -114,6 +114,10 @@ describe('the planner', () => {
 
     await page.click('[data-test="plan-publish"]')
     await page.waitForFunction(() => document.querySelector('[data-test="plan-state"]')?.textContent?.trim() === 'published')
+    // Once published, it can be shared with someone outside the studio.
+    await page.fill('[data-test="field-share-email"]', `guest-${Date.now()}@example.test`)
+    await page.click('[data-test="plan-share-send"]')
+    await page.waitForFunction(() => document.querySelector('[data-test="plan-share"] [data-test="form-message"]')?.textContent?.includes('Invitation sent'))
     // The sign-in page asks who is signed in first (401); the refused yarn above is a 400.
     expect(errors.filter(e => !/status of 40[01]/.test(e))).toEqual([])
     await context.close()

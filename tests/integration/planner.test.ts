@@ -1,6 +1,6 @@
 import { randomUUID } from 'node:crypto'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
-import { signedIn, type ApiClient } from '../support/api'
+import { apiClient, signedIn, type ApiClient } from '../support/api'
 import { closeTestDb, fixturePassword, makeStudio } from '../support/db'
 import { linkIn, waitForMail } from '../support/mail'
 
@@ -206,6 +206,26 @@ describe('plans', () => {
     expect((await as.outsider.get(`/api/plans/${draft.id}`)).status).toBe(404)
     expect((await as.knitter.delete(`/api/plans/${draft.id}`)).status).toBe(403)
     expect((await as.designer.delete(`/api/plans/${draft.id}`)).status).toBe(204)
+  })
+
+  it('shares a published plan with someone outside the studio: a knitter invitation that lands on the plan', async () => {
+    const plan = await made(as.designer.post('/api/plans', handbookPlan({ name: 'Shared plan' })))
+    const email = `guest-${randomUUID()}@example.test`
+    expect((await as.designer.post(`/api/plans/${plan.id}/share`, { email })).status).toBe(409) // not published yet
+    await made(as.designer.patch(`/api/plans/${plan.id}`, { published: true }), 200)
+    expect((await as.knitter.post(`/api/plans/${plan.id}/share`, { email })).status).toBe(403)
+    expect((await as.designer.post(`/api/plans/${plan.id}/share`, { email: 'not-an-address' })).status).toBe(400)
+    await made(as.designer.post(`/api/plans/${plan.id}/share`, { email }))
+
+    const mail = await waitForMail(email)
+    expect(mail.text).toContain('Shared plan')
+    const link = linkIn(mail, '/invitations/')
+    expect(link.searchParams.get('then')).toBe(`/plans/${plan.id}`)
+    const guest = apiClient()
+    const accepted = await guest.post(`${link.pathname}/accept`.replace('/invitations/', '/api/invitations/'), { name: 'Guest Knitter', password: 'guest-password-1' })
+    expect(accepted.status, JSON.stringify(accepted.body)).toBe(200)
+    expect(accepted.body.studios).toContainEqual(expect.objectContaining({ id: s.studio.id, role: 'knitter' }))
+    expect((await guest.get(`/api/plans/${plan.id}`)).status).toBe(200)
   })
 
   it.each([

@@ -106,6 +106,7 @@ export const roleMatrix: Row[] = [
   { route: 'GET /api/plans/[id]', call: async f => ({ method: 'GET', path: `/api/plans/${await planner.publishedPlan(f)}` }), expect: studioMember(200) },
   { route: 'PATCH /api/plans/[id]', call: async f => ({ method: 'PATCH', path: `/api/plans/${await planner.publishedPlan(f)}`, body: { name: 'Renamed plan' } }), expect: studioDesigner(200) },
   { route: 'DELETE /api/plans/[id]', call: async f => ({ method: 'DELETE', path: `/api/plans/${await planner.publishedPlan(f)}` }), expect: studioDesigner(204) },
+  { route: 'POST /api/plans/[id]/share', call: async f => ({ method: 'POST', path: `/api/plans/${await planner.publishedPlan(f)}/share`, body: { email: uniqueEmail('matrix-share') } }), expect: studioDesigner(201) },
   { route: 'POST /api/plans/[id]/projects', call: async f => ({ method: 'POST', path: `/api/plans/${await planner.publishedPlan(f)}/projects`, body: {} }), expect: studioMember(201) },
   { route: 'GET /api/invitations/[token]', call: async f => ({ method: 'GET', path: `/api/invitations/${await freshInvitation(f)}` }), expect: same(200) },
   {
