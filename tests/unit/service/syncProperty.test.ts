@@ -18,8 +18,9 @@ const action = fc.oneof(
 )
 
 function targetRow(kind: 'advance' | 'back' | 'jump', from: number, pick: number): number | null {
-  if (kind === 'advance') return from < totalRows ? from + 1 + Math.floor(pick * (totalRows - from)) : null
-  if (kind === 'back') return from > 0 ? Math.floor(pick * from) : null
+  // pick may be exactly 1: keep advance ≤ totalRows and back < from.
+  if (kind === 'advance') return from < totalRows ? Math.min(totalRows, from + 1 + Math.floor(pick * (totalRows - from))) : null
+  if (kind === 'back') return from > 0 ? Math.min(from - 1, Math.floor(pick * from)) : null
   return Math.round(pick * totalRows)
 }
 
