@@ -197,7 +197,8 @@ export async function planDetail(plan: Plan): Promise<PlanDetail> {
     return {
       id: p.id, position: p.position, name: p.name, copies: p.copies, targetWidth: Number(p.targetWidth), targetLength: Number(p.targetLength),
       unit: p.unit, ease: Number(p.ease), sections: p.sections,
-      numbers: w ? { needles: w.needles, targetRows: w.targetRows, plannedRows: w.plannedRows, machineRows: w.machineRows, colourChanges: w.colourChanges, sections: w.sections } : null,
+      numbers: w ? { needles: w.needles, targetRows: w.targetRows, plannedRows: w.plannedRows, machineRows: w.machineRows, colourChanges: w.colourChanges, sections: w.sections,
+        preview: { timeline: w.timeline, offsets: w.offsets, shaping: w.shaping } } : null,
     }
   })
   return {
@@ -244,4 +245,21 @@ export async function startProjectFromPlan(plan: Plan, body: PlanProjectBody, kn
     source: 'plan', plan: { id: plan.id, name: plan.name }, pieces,
   }, transaction))
   return project.id
+}
+
+/**
+ * Grams of each yarn the studio's published plans call for, summed over those plans (drafts are
+ * still changing, so they do not count). Plans without an estimate add nothing.
+ */
+export async function plannedGramsByYarn(studioId: number): Promise<Map<number, { grams: number; plans: number }>> {
+  const plans = await Plan.findAll({ where: { studioId, published: true }, include: withPieces })
+  const planned = new Map<number, { grams: number; plans: number }>()
+  for (const plan of plans) {
+    const detail = await planDetail(plan)
+    for (const y of detail.estimate?.yarns ?? []) {
+      const p = planned.get(y.yarnId) ?? { grams: 0, plans: 0 }
+      planned.set(y.yarnId, { grams: p.grams + y.grams, plans: p.plans + 1 })
+    }
+  }
+  return planned
 }

@@ -18,6 +18,7 @@ import {
 } from '../knitting'
 import { slotSymbols, type PieceSection, type PieceTimeline, type SlotYarn } from '../types/knit'
 import type { PlanPieceInput, PlanSectionNumbers } from '../types/plan'
+import type { SectionShaping } from './piecePicture'
 import { compilePieceTimeline } from './timeline'
 
 export interface PlanMotif { name: string; chart: string[] }
@@ -39,6 +40,8 @@ export interface WorkedPlanPiece {
   timeline: PieceTimeline
   /** Motif offset for each timeline section (0 for plain ones), for the yarn estimate. */
   offsets: number[]
+  /** Shaping of each timeline section (null when it keeps its width), for the piece's picture. */
+  shaping: (SectionShaping | null)[]
   sections: PlanSectionNumbers[]
   machineRows: number
   colourChanges: number
@@ -63,14 +66,16 @@ export function workPlanPiece(piece: PlanPieceInput, ctx: PlanPieceContext): Wor
   }
   const out: PieceSection[] = []
   const offsets: number[] = []
+  const shaping: (SectionShaping | null)[] = []
   const numbers: PlanSectionNumbers[] = []
   let pending: string[] = []
   let current = 'A'
   let stitches = needles
-  const push = (section: PieceSection, offset = 0) => {
+  const push = (section: PieceSection, offset = 0, shape: SectionShaping | null = null) => {
     const notes = [...pending, ...(section.note ? [section.note] : [])]
     out.push(notes.length ? { ...section, note: notes.join(' — ') } : section)
     offsets.push(offset)
+    shaping.push(shape)
     pending = []
   }
   const none = { placement: null, maxFloat: null, maxFloatMm: null, shaping: null }
@@ -112,7 +117,7 @@ export function workPlanPiece(piece: PlanPieceInput, ctx: PlanPieceContext): Wor
       stitches += (s.change === 'increase' ? 2 : -2) * s.stitchesEachSide
       if (stitches < 1) throw new KnittingInputError(`${field}.stitchesEachSide: decreases leave no stitches`, { field: `${field}.stitchesEachSide` })
       const verb = s.change === 'increase' ? 'Increase' : 'Decrease'
-      push({ kind: 'plain', label: s.label || `${verb}s`, rows: s.rows, yarn: current, note: `${verb} 1 stitch each side ${text} (${stitches} stitches after)` })
+      push({ kind: 'plain', label: s.label || `${verb}s`, rows: s.rows, yarn: current, note: `${verb} 1 stitch each side ${text} (${stitches} stitches after)` }, 0, { change: s.change, steps })
       numbers.push({ kind: s.kind, rows: s.rows, ...none, shaping: { steps, text, stitchesAfter: stitches } })
     }
     else {
@@ -134,7 +139,7 @@ export function workPlanPiece(piece: PlanPieceInput, ctx: PlanPieceContext): Wor
   }
   const compiled = compilePieceTimeline(timeline)
   return {
-    needles, targetRows, plannedRows: numbers.reduce((n, s) => n + s.rows, 0), timeline, offsets, sections: numbers,
+    needles, targetRows, plannedRows: numbers.reduce((n, s) => n + s.rows, 0), timeline, offsets, shaping, sections: numbers,
     machineRows: compiled.rows.length, colourChanges: compiled.changes.length,
   }
 }

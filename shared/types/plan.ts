@@ -3,6 +3,8 @@
 // unless named as counts (needles, rows, stitches).
 
 import type { Distinguishability } from '../knitting'
+import type { SectionShaping } from '../knit/piecePicture'
+import type { PieceTimeline } from './knit'
 import type { Technique, YarnListItem } from './studio'
 
 export type LengthUnit = 'cm' | 'in'
@@ -32,6 +34,15 @@ export interface YarnItem extends YarnListItem {
   notes: string
   createdAt: string
   updatedAt: string
+}
+
+/** GET /api/yarns: a yarn with what the studio's published plans call for. */
+export interface YarnStockItem extends YarnItem {
+  /** Grams the published plans need of it (their yarn estimates summed), and how many plans. */
+  plannedGrams: number
+  plannedIn: number
+  /** Fewer grams on hand than the published plans need. */
+  low: boolean
 }
 
 /** The engine's numbers for a swatch. */
@@ -160,6 +171,8 @@ export interface PlanPieceNumbers {
   machineRows: number
   colourChanges: number
   sections: PlanSectionNumbers[]
+  /** What the preview draws: the timeline a project would freeze, with each section's motif offset and shaping. */
+  preview: { timeline: PieceTimeline; offsets: number[]; shaping: (SectionShaping | null)[] }
 }
 
 export interface PlanPiece extends PlanPieceInput {

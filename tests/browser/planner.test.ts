@@ -1,7 +1,7 @@
 import { createRequire } from 'node:module'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser, Page } from 'playwright-core'
-import { launchBrowser, newTabletContext, screenshot, signIn, watchForErrors } from '../support/browser'
+import { launchBrowser, newTabletContext, screenshot, screenshotDir, signIn, watchForErrors } from '../support/browser'
 
 // The planner as a designer uses it (stock, a plan from a target size, shaping, publish) and
 // as a knitter (a project from the published plan, then the knit view of its first piece).
@@ -101,6 +101,40 @@ describe('the planner', () => {
     expect(await page.textContent('[data-test="yarn-estimate"]')).toContain('Ink blue')
     expect(await page.textContent('[data-test="plan-section"][data-kind="motif"] [data-test="section-numbers"]')).toMatch(/\d+ full repeats of \d+/)
     expect(Number(await page.textContent('[data-test="total-changes"]'))).toBeGreaterThan(0)
+
+    // The preview: one strip block and one table row per section with rows, and the piece drawn in its colours.
+    const preview = page.locator('[data-test="piece-preview"]').first()
+    expect(await preview.locator('[data-test="timeline-strip"] li').count()).toBe(3) // border, motif, shaping
+    expect(await preview.locator('[data-test="timeline-table"] tbody tr').count()).toBe(3)
+    const drawn = await preview.locator('[data-test="piece-picture"]').evaluate((el) => {
+      const c = el as HTMLCanvasElement
+      const data = c.getContext('2d')!.getImageData(0, 0, c.width, c.height).data
+      const colours = new Set<string>()
+      for (let i = 0; i < data.length; i += 4) if (data[i + 3]) colours.add(`${data[i]},${data[i + 1]},${data[i + 2]}`)
+      return { width: c.width, colours: [...colours].sort() }
+    })
+    // 120 needles; cream #efe6d2 and ink blue #1d2f5a, nothing else.
+    expect(drawn).toEqual({ width: 120, colours: ['239,230,210', '29,47,90'] })
+    await preview.scrollIntoViewIfNeeded()
+    await screenshot(page, 'planner-preview-landscape')
+
+    // Sections drag by their grip: the shaping section goes above the motif, and the order is saved.
+    const kinds = () => page.$$eval('[data-test="plan-section"]', els => els.map(e => e.getAttribute('data-kind')))
+    expect(await kinds()).toEqual(['cast-on-note', 'plain', 'motif', 'shaping'])
+    await page.locator('[data-test="plan-section"][data-kind="motif"]').evaluate(el => el.scrollIntoView({ block: 'start' }))
+    const grip = await page.locator('[data-test="plan-section"][data-kind="shaping"] [data-test="section-grip"]').boundingBox()
+    const target = await page.locator('[data-test="plan-section"][data-kind="motif"]').boundingBox()
+    await page.mouse.move(grip!.x + grip!.width / 2, grip!.y + grip!.height / 2)
+    await page.mouse.down()
+    await page.mouse.move(grip!.x + 20, grip!.y - 10, { steps: 4 })
+    await page.mouse.move(target!.x + 40, target!.y + 10, { steps: 12 })
+    await page.mouse.up()
+    await page.waitForFunction(() => [...document.querySelectorAll('[data-test="plan-section"]')].map(e => e.getAttribute('data-kind')).join() === 'cast-on-note,plain,shaping,motif')
+    await page.click('[data-test="plan-save"]')
+    await page.waitForFunction(() => document.querySelector('[data-test="form-message"]')?.textContent?.includes('Saved'))
+    await page.reload()
+    await page.waitForSelector('[data-test="piece-needles"]')
+    expect(await kinds()).toEqual(['cast-on-note', 'plain', 'shaping', 'motif'])
     await screenshot(page, 'planner-landscape')
     await page.locator('[data-test="plan-section"][data-kind="shaping"]').scrollIntoViewIfNeeded()
     await screenshot(page, 'planner-piece-landscape')
@@ -109,6 +143,14 @@ describe('the planner', () => {
     await page.goto(`/plans/${planId}/print`)
     await page.waitForSelector('[data-test="float-verdict"]')
     await screenshot(page, 'planner-print-landscape')
+    // The sheet on paper, both sizes, kept beside the screenshots to look at.
+    await page.emulateMedia({ media: 'print' })
+    for (const format of ['A4', 'Letter'] as const) {
+      const pdf = await page.pdf({ format, printBackground: true, path: `${screenshotDir}/planner-sheet-${format}.pdf` })
+      expect(pdf.subarray(0, 5).toString()).toBe('%PDF-')
+      expect(pdf.toString('latin1').match(/\/Type\s*\/Page[^s]/g)?.length, `${format} pages`).toBeGreaterThanOrEqual(1)
+    }
+    await page.emulateMedia({ media: 'screen' })
     await page.goto(`/plans/${planId}`)
     await page.waitForSelector('[data-test="plan-publish"]')
 
@@ -118,6 +160,11 @@ describe('the planner', () => {
     await page.fill('[data-test="field-share-email"]', `guest-${Date.now()}@example.test`)
     await page.click('[data-test="plan-share-send"]')
     await page.waitForFunction(() => document.querySelector('[data-test="plan-share"] [data-test="form-message"]')?.textContent?.includes('Invitation sent'))
+    // The stock page now counts the published plan against its yarns, and filters by name.
+    await page.goto('/studio/stock')
+    await page.fill('[data-test="yarn-filter-text"]', 'ink bl')
+    await page.waitForFunction(() => document.querySelectorAll('[data-test="yarn-table"] tbody tr').length === 1)
+    expect(await page.textContent('[data-test="yarn-table"] tbody tr [data-test="yarn-planned"]')).toMatch(/\d+ g\s*in \d+ published plans?/)
     // The sign-in page asks who is signed in first (401); the refused yarn above is a 400.
     expect(errors.filter(e => !/status of 40[01]/.test(e))).toEqual([])
     await context.close()

@@ -192,6 +192,16 @@ describe('plans', () => {
     expect(b.metres).toBeCloseTo(0.89, 9)
     expect(plan.estimate.model).toContain('swatch stitch')
     expect(plan.warnings.map((w: any) => w.kind)).toContain('low-stock')
+
+    // The stock list marks a yarn short only against published plans: a draft counts for nothing.
+    const listed = async () => (await as.knitter.get(`/api/yarns?studioId=${s.studio.id}`)).body.find((x: any) => x.id === scrap.id)
+    expect(await listed()).toMatchObject({ plannedGrams: 0, plannedIn: 0, low: false })
+    await made(as.designer.patch(`/api/plans/${plan.id}`, { published: true }), 200)
+    const short = await listed()
+    expect(short).toMatchObject({ plannedIn: 1, low: true })
+    expect(short.plannedGrams).toBeCloseTo(0.445, 9)
+    await made(as.designer.patch(`/api/yarns/${scrap.id}`, { gramsOnHand: 1 }), 200)
+    expect(await listed()).toMatchObject({ plannedIn: 1, low: false })
   })
 
   it('knitters see published plans only; designers write', async () => {
@@ -260,6 +270,8 @@ describe('plans', () => {
     expect(project.yarns.map((y: any) => [y.slot, y.yarnId, y.symbol])).toEqual([['A', stock.oat.id, '●'], ['B', stock.navy.id, '▲']])
     const before = (await as.knitter.get(`/api/pieces/${project.pieces[0].id}`)).body.timeline
     expect(before.needles).toBe(50)
+    // The planner's preview draws exactly the timeline the project froze.
+    expect((await as.designer.get(`/api/plans/${plan.id}`)).body.pieces[0].numbers.preview.timeline).toEqual(before)
     // Notes join the next section with rows; shaping rows are plain rows in the yarn before.
     expect(before.sections.map((x: any) => [x.kind, x.rows ?? x.chartRows, x.yarn ?? x.main, x.note])).toEqual([
       ['plain', 196, 'A', 'Cast on with waste yarn — Stitch size 6'],

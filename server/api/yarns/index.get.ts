@@ -1,12 +1,17 @@
-import type { YarnItem } from '../../../shared/types/plan'
+import type { YarnStockItem } from '../../../shared/types/plan'
 import { studioQuery } from '../../../shared/validation/library'
 import { Yarn } from '../../db/models'
 
-// A studio's yarn stock, for every member (YarnListItem's fields plus studio, weight name and notes).
-export default defineEventHandler(async (event): Promise<YarnItem[]> => {
+// A studio's yarn stock, for every member (YarnListItem's fields plus studio, weight name and notes),
+// each with what the published plans need of it and whether that is more than is on hand.
+export default defineEventHandler(async (event): Promise<YarnStockItem[]> => {
   await requireUser(event)
   const { studioId } = queryValid(event, studioQuery)
   await requireStudioRole(event, studioId)
-  const rows = await Yarn.findAll({ where: { studioId }, order: [['name', 'ASC']] })
-  return rows.map(yarnItem)
+  const [rows, planned] = await Promise.all([Yarn.findAll({ where: { studioId }, order: [['name', 'ASC']] }), plannedGramsByYarn(studioId)])
+  return rows.map((row) => {
+    const item = yarnItem(row)
+    const need = planned.get(row.id) ?? { grams: 0, plans: 0 }
+    return { ...item, plannedGrams: need.grams, plannedIn: need.plans, low: need.grams > item.gramsOnHand }
+  })
 })

@@ -2,7 +2,8 @@ import { Hash } from '@adonisjs/hash'
 import { Scrypt } from '@adonisjs/hash/drivers/scrypt'
 import type { Sequelize, Transaction } from 'sequelize'
 import { borderedMotifTimeline, slotYarns } from '../../../shared/knit/timeline'
-import { Machine, Membership, Motif, Piece, Project, RowEvent, Studio, User, Yarn } from '../models'
+import type { PlanPieceInput } from '../../../shared/types/plan'
+import { Machine, Membership, Motif, Piece, Plan, PlanPiece, Project, RowEvent, Studio, Swatch, User, Yarn } from '../models'
 import { motifRecord } from '../motifs'
 import { insertProject } from '../projects'
 
@@ -63,7 +64,9 @@ export async function seedDemo(sequelize: Sequelize): Promise<'created' | 'prese
       const designer = people.designer!.id
       motifRows[m.name] = await Motif.create({ studioId: studio.id, name: m.name, published: m.published, createdBy: designer, updatedBy: designer, ...motifRecord(m.rows) }, { transaction })
     }
-    await seedProjects({ studio, knitter: people.knitter!, machines: machineRows, yarns: yarnRows, motifs: motifRows }, transaction)
+    const stock = { studio, knitter: people.knitter!, machines: machineRows, yarns: yarnRows, motifs: motifRows }
+    await seedProjects(stock, transaction)
+    await seedPlans(stock, people.designer!, transaction)
   })
   return 'created'
 }
@@ -122,4 +125,56 @@ async function seedProjects(stock: DemoStock, transaction: Transaction) {
     notes: 'Mid-gauge bed, colour by colour, two passes per colour.',
     pieces: [{ name: 'Cushion front', timeline: cushion.timeline }],
   }, transaction)
+}
+
+/**
+ * A weighed swatch and two plans from it: a published jumper (back, front, two sleeves with
+ * increases) that knitters can start, and a draft scarf the designer is still working on.
+ */
+async function seedPlans(stock: DemoStock, designer: User, transaction: Transaction) {
+  const [standard] = stock.machines
+  const cream = stock.yarns.Cream!, ink = stock.yarns['Ink blue']!
+  const swatch = await Swatch.create({
+    studioId: stock.studio.id, machineId: standard!.id, stitchSize: '6', mainYarnId: cream.id, contrastYarnId: ink.id,
+    stitches: 40, rows: 60, width: 13.3, height: 14.2, unit: 'cm', grams: 6.8, washed: true,
+    notes: 'Marsh wave over the middle 24 stitches; washed and dried flat before measuring.',
+  }, { transaction })
+  const wave = stock.motifs['Marsh wave']!.id
+  const body = (name: string): PlanPieceInput => ({
+    name, copies: 1, targetWidth: 50, targetLength: 60, unit: 'cm', ease: 4,
+    sections: [
+      { kind: 'cast-on-note', text: 'Cast on with waste yarn, then a row of cream.' },
+      { kind: 'plain', label: 'Welt', rows: 30, yarn: 'A', stitchSize: '4' },
+      { kind: 'setting-note', text: 'Stitch size back to 6.' },
+      { kind: 'motif', motifId: wave, placement: 'centred', lengthCm: 48, main: 'A', contrast: 'B' },
+      { kind: 'plain', label: 'Shoulder band', rows: 20, yarn: 'A' },
+      { kind: 'cast-off-note', text: 'Cast off loosely over the gate pegs.' },
+    ],
+  })
+  const sleeve: PlanPieceInput = {
+    name: 'Sleeve', copies: 2, targetWidth: 22, targetLength: 45, unit: 'cm', ease: 0,
+    sections: [
+      { kind: 'plain', label: 'Cuff', rows: 30, yarn: 'A', stitchSize: '4' },
+      { kind: 'shaping', change: 'increase', stitchesEachSide: 20, rows: 120 },
+      { kind: 'motif', motifId: wave, placement: 'centred', chartRows: 24, main: 'A', contrast: 'B' },
+      { kind: 'plain', label: 'Top', rows: 16, yarn: 'A' },
+      { kind: 'cast-off-note', text: 'Cast off loosely.' },
+    ],
+  }
+  const plans = [
+    { name: 'Marsh wave jumper plan', published: true, notes: 'Cream body, ink blue waves; sleeves twice.', pieces: [body('Back'), body('Front'), sleeve] },
+    {
+      name: 'Pebble check scarf (draft)', published: false, notes: 'Still choosing the length.',
+      pieces: [{ name: 'Scarf', copies: 1, targetWidth: 25, targetLength: 150, unit: 'cm' as const, ease: 0, sections: [
+        { kind: 'motif' as const, motifId: stock.motifs['Pebble check']!.id, placement: 'centred' as const, lengthCm: 150, main: 'A', contrast: 'B' },
+      ] }],
+    },
+  ]
+  for (const p of plans) {
+    const plan = await Plan.create({
+      studioId: stock.studio.id, name: p.name, machineId: standard!.id, swatchId: swatch.id, floatLimit: 5, published: p.published, notes: p.notes,
+      yarns: [{ slot: 'A', yarnId: cream.id }, { slot: 'B', yarnId: ink.id }], createdBy: designer.id, updatedBy: designer.id,
+    }, { transaction })
+    for (const [i, piece] of p.pieces.entries()) await PlanPiece.create({ planId: plan.id, position: i + 1, ...piece }, { transaction })
+  }
 }
