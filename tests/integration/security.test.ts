@@ -17,7 +17,8 @@ async function sealedSession(user: { id: number; email: string; name: string }, 
   const session = { id: randomUUID(), createdAt, data: { user, loggedInAt: createdAt } }
   // An expired seal: sealed "two minutes ago" for one second (past the 60 s clock skew allowed).
   const expiry = sealExpired ? { ttl: 1000, localtimeOffsetMsec: -120_000 } : { ttl: 0 }
-  const sealed = await iron.seal(globalThis.crypto, session, process.env.NUXT_SESSION_PASSWORD!, { ...iron.defaults, ...expiry })
+  // Node's WebCrypto types and iron's disagree on buffer types only; the object is the one h3 uses.
+  const sealed = await iron.seal(globalThis.crypto as unknown as Parameters<typeof iron.seal>[0], session, process.env.NUXT_SESSION_PASSWORD!, { ...iron.defaults, ...expiry })
   return `nuxt-session=${sealed}`
 }
 
@@ -53,7 +54,7 @@ describe('security at the edge', () => {
     const owner = await signedIn(f.owner.email, fixturePassword)
     const before = await storedRows([f.studio.id])
     const yarn = { studioId: f.studio.id, name: 'Cross-site yarn', hex: '#112233', weightCategory: 1, metresPer100g: 400 }
-    for (const headers of [{ origin: 'https://elsewhere.example' }, { 'sec-fetch-site': 'cross-site' }, { origin: 'not a url' }]) {
+    for (const headers of [{ origin: 'https://elsewhere.example' }, { 'sec-fetch-site': 'cross-site' }, { origin: 'not a url' }] as Record<string, string>[]) {
       const res = await owner.post('/api/yarns', yarn, headers)
       expect(res.status, JSON.stringify(headers)).toBe(403)
     }

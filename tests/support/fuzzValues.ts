@@ -3,7 +3,7 @@ import fc from 'fast-check'
 // What a careless or hostile client sends where a field, a path segment or a query value is
 // expected. The fixed values are the classic troublemakers; the generated ones find the rest.
 
-const troublemakers = [
+const troublemakers: unknown[] = [
   null, true, false, '', ' ', 0, -1, -0.5, 0.5, 1e-9, 1e308, -1e308, 2 ** 53 + 1, 2 ** 31, 2 ** 32,
   '9'.repeat(400), '1', '1e308', '-1', [], {}, [[[]]], { toString: 'x' }, ['x'],
   '<script>window.__xss=1</script>', '\' OR 1=1; --', '\u0000', '\uD800', '😀'.repeat(50), 'x'.repeat(6000),
@@ -46,7 +46,7 @@ export function withValueAt(value: unknown, path: Path, replacement: unknown): u
   const last = path[path.length - 1]!
   if (replacement === remove) {
     if (Array.isArray(parent)) parent.splice(last as number, 1)
-    else delete parent[last]
+    else Reflect.deleteProperty(parent, last)
   }
   else parent[last] = replacement
   return copy
