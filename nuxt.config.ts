@@ -52,6 +52,8 @@ export default defineNuxtConfig({
     // Where the original motif pictures are kept (NUXT_PICTURES_DIR); empty = the `pictures`
     // storage mount below. Any unstorage driver can replace that mount (see README).
     picturesDir: '',
+    // A session cookie is refused 30 days after sign-in (nuxt-auth-utils sets no limit itself).
+    session: { maxAge: 30 * 24 * 60 * 60 },
   },
   tailwindcss: {
     cssPath: false,

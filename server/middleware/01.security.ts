@@ -22,6 +22,11 @@ export default defineEventHandler((event) => {
 
   const path = event.path.split('?')[0]!
   const limit = uploadPaths.includes(path) ? uploadBodyBytes : maxBodyBytes
-  const length = Number(getRequestHeader(event, 'content-length') ?? 0)
+  const declared = getRequestHeader(event, 'content-length')
+  // A body streamed without a length would be read whole before any limit could apply.
+  if (declared === undefined && getRequestHeader(event, 'transfer-encoding')) {
+    throw createError({ statusCode: 411, message: 'Send the body with a Content-Length header' })
+  }
+  const length = Number(declared ?? 0)
   if (length > limit) throw createError({ statusCode: 413, message: `Request body too large (limit ${Math.round(limit / 1024)} KB)` })
 })

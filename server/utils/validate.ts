@@ -19,7 +19,7 @@ function validate<T extends z.ZodType>(schema: T, input: unknown, where: string)
 }
 
 export async function readValid<T extends z.ZodType>(event: H3Event, schema: T) {
-  return validate(schema, await readBody(event), 'Invalid body')
+  return validate(schema, await readJsonBody(event), 'Invalid body')
 }
 
 export function queryValid<T extends z.ZodType>(event: H3Event, schema: T) {

@@ -19,7 +19,12 @@ export const invitationAcceptBody = z.object({
   password: passwordSchema.optional(),
 })
 
-export const idParam = z.coerce.number().int('must be a whole number').positive('must be a positive id').max(2 ** 31)
+// Text ids (paths, queries, form fields) must be plain digits: Number() would also read
+// "0x10", "1e1" or " 16" as an existing row's id.
+export const idParam = z.preprocess(
+  v => (typeof v === 'string' && /^\d{1,10}$/.test(v) ? Number(v) : v),
+  z.number('must be a whole number').int('must be a whole number').positive('must be a positive id').max(2 ** 31),
+)
 export const studioParams = z.object({ studioId: idParam })
 export const memberParams = z.object({ studioId: idParam, userId: idParam })
 export const roleSchema = z.enum(studioRoles)

@@ -73,6 +73,16 @@ describe('accounts', () => {
     expect(Number(blocked.headers.get('retry-after'))).toBeGreaterThan(0)
   })
 
+  it('holds the per-account limit under a burst of parallel attempts, the right password among them', async () => {
+    const email = uniqueEmail('burst')
+    await apiClient().post('/api/auth/register', { email, password: 'right-password', name: 'B' })
+    const attempts = Array.from({ length: 30 }, (_, i) => apiClient().post('/api/auth/login', { email, password: i === 29 ? 'right-password' : `wrong-password-${i}` }))
+    const statuses = (await Promise.all(attempts)).map(r => r.status)
+    // At most five attempts reach the password check; every other one is a 429.
+    expect(statuses.filter(s => s !== 429).length, statuses.join(' ')).toBeLessThanOrEqual(5)
+    expect(statuses.filter(s => s === 429).length).toBeGreaterThanOrEqual(25)
+  })
+
   it('throttles sign-in per address across accounts', async () => {
     const client = apiClient()
     const statuses: number[] = []

@@ -167,6 +167,25 @@ describe('refused pictures store nothing', () => {
     await expectNothingStored(before)
   })
 
+  // A header that reads right (so the type and size pass) over damaged or missing picture data.
+  const garbage = (n: number) => Buffer.from(Array.from({ length: n }, (_, i) => (i * 37 + 11) % 256))
+  const jpeg = () => chartPicture(chartRows, 10, jpegOf)
+  const headerOver = (bytes: Buffer, keep: number) => Buffer.concat([bytes.subarray(0, keep), garbage(bytes.length - keep)])
+  it.each([
+    ['a JPEG cut after its size', () => { const j = jpeg(); return j.subarray(0, j.indexOf(Buffer.from([0xFF, 0xC0])) + 12) }, 'jpg', 'image/jpeg'],
+    ['a JPEG header over garbage', () => { const j = jpeg(); return headerOver(j, j.indexOf(Buffer.from([0xFF, 0xC0])) + 12) }, 'jpg', 'image/jpeg'],
+    ['a lossy WebP cut short', () => fixture('chart-lossy.webp').subarray(0, 40), 'webp', 'image/webp'],
+    ['a lossless WebP header over garbage', () => headerOver(fixture('chart-lossless.webp'), 25), 'webp', 'image/webp'],
+    ['a WebP with transparency cut short', () => fixture('chart-alpha.webp').subarray(0, 34), 'webp', 'image/webp'],
+    ['a PNG header over garbage', () => headerOver(chartPicture(chartRows), 33), 'png', 'image/png'],
+  ])('%s → 422, nothing stored', async (_, bytes, ext, type) => {
+    const before = await snapshot()
+    const res = await upload(designer, {}, bytes(), `chart.${ext}`, type)
+    expect(res.status, JSON.stringify(res.body)).toBe(422)
+    expect(res.body.message).toContain('could not be read')
+    await expectNothingStored(before)
+  })
+
   it('a text file named .png and declared image/png → 415', async () => {
     const before = await snapshot()
     const res = await upload(designer, {}, Buffer.from('hello, I am only text\n'.repeat(20)), 'chart.png', 'image/png')

@@ -1,5 +1,26 @@
-import { describe, expect, it } from 'vitest'
-import { apiClient, signedIn } from '../support/api'
+import { randomUUID } from 'node:crypto'
+import * as iron from 'iron-webcrypto'
+import { afterAll, describe, expect, it } from 'vitest'
+import { apiClient, signedIn, uniqueEmail } from '../support/api'
+import { closeTestDb, fixturePassword, makeStudio, makeUser } from '../support/db'
+import { storedRows } from '../support/storedRows'
+import { linkIn, waitForMail } from '../support/mail'
+
+afterAll(closeTestDb)
+
+/**
+ * A session cookie sealed the way the server seals them (h3's defaults, our password), for
+ * a user, created `ageMs` ago, optionally with a seal that has itself expired.
+ */
+async function sealedSession(user: { id: number; email: string; name: string }, ageMs: number, sealExpired = false) {
+  const createdAt = Date.now() - ageMs
+  const session = { id: randomUUID(), createdAt, data: { user, loggedInAt: createdAt } }
+  // An expired seal: sealed "two minutes ago" for one second (past the 60 s clock skew allowed).
+  const expiry = sealExpired ? { ttl: 1000, localtimeOffsetMsec: -120_000 } : { ttl: 0 }
+  // Node's WebCrypto types and iron's disagree on buffer types only; the object is the one h3 uses.
+  const sealed = await iron.seal(globalThis.crypto as unknown as Parameters<typeof iron.seal>[0], session, process.env.NUXT_SESSION_PASSWORD!, { ...iron.defaults, ...expiry })
+  return `nuxt-session=${sealed}`
+}
 
 describe('security at the edge', () => {
   it('sends the security headers on pages and API answers', async () => {
@@ -26,6 +47,68 @@ describe('security at the edge', () => {
     const tampered = apiClient()
     tampered.cookie = knitter.cookie.slice(0, -4) + 'AAAA'
     expect((await tampered.get('/api/me')).status).toBe(401)
+  })
+
+  it('refuses a cross-site write with the cookie before anything is stored, with or without an Origin', async () => {
+    const f = await makeStudio()
+    const owner = await signedIn(f.owner.email, fixturePassword)
+    const before = await storedRows([f.studio.id])
+    const yarn = { studioId: f.studio.id, name: 'Cross-site yarn', hex: '#112233', weightCategory: 1, metresPer100g: 400 }
+    for (const headers of [{ origin: 'https://elsewhere.example' }, { 'sec-fetch-site': 'cross-site' }, { origin: 'not a url' }] as Record<string, string>[]) {
+      const res = await owner.post('/api/yarns', yarn, headers)
+      expect(res.status, JSON.stringify(headers)).toBe(403)
+    }
+    expect(await storedRows([f.studio.id])).toEqual(before)
+    expect((await owner.post('/api/yarns', yarn)).status).toBe(201) // the same request from our own page works
+  })
+
+  it('treats an expired session cookie as no session (sealed like the server\'s, only older)', async () => {
+    const user = await makeUser('expiry')
+    const session = { id: user.id, email: user.email, name: user.name }
+    const day = 24 * 60 * 60_000
+    const fresh = apiClient()
+    fresh.cookie = await sealedSession(session, 0)
+    expect((await fresh.get('/api/me')).status).toBe(200) // the sealing is right: a new one is accepted
+    const old = apiClient()
+    old.cookie = await sealedSession(session, 31 * day)
+    expect((await old.get('/api/me')).status).toBe(401)
+    const lapsed = apiClient()
+    lapsed.cookie = await sealedSession(session, 0, true)
+    expect((await lapsed.get('/api/me')).status).toBe(401)
+  })
+
+  it('tells nobody whether an address is registered: sign-up, sign-in, reset, invitation and sharing answer alike', async () => {
+    const f = await makeStudio()
+    const owner = await signedIn(f.owner.email, fixturePassword)
+    const registered = (await makeUser('known')).email
+    const plan = await owner.post('/api/plans', { studioId: f.studio.id, name: 'Shared', published: true, pieces: [{ name: 'Back', targetWidth: 20, targetLength: 10, sections: [{ kind: 'plain', rows: 4, yarn: 'A' }] }] })
+    expect(plan.status).toBe(201)
+    const answers = async (email: string) => {
+      const calls = [
+        apiClient().post('/api/auth/register', { email, password: 'probe-password-1', name: 'Probe' }),
+        apiClient().post('/api/auth/login', { email, password: 'probe-wrong-password' }),
+        apiClient().post('/api/auth/password-reset', { email }),
+        owner.post(`/api/studios/${f.studio.id}/invitations`, { email, role: 'knitter' }),
+        owner.post(`/api/plans/${plan.body.id}/share`, { email }),
+      ]
+      // Ids, times and the address itself differ by nature; the shape and the words must not.
+      return (await Promise.all(calls)).map(r => ({ status: r.status, body: JSON.stringify(r.body).replace(email, 'EMAIL').replace(/\d+/g, 'N') }))
+    }
+    expect(await answers(registered)).toEqual(await answers(uniqueEmail('unknown')))
+  })
+
+  it('an invitation link works once and not after it expires', async () => {
+    const f = await makeStudio()
+    const owner = await signedIn(f.owner.email, fixturePassword)
+    const email = uniqueEmail('once')
+    await owner.post(`/api/studios/${f.studio.id}/invitations`, { email, role: 'knitter' })
+    const token = linkIn(await waitForMail(email), '/invitations/').pathname.split('/').pop()!
+    const accept = () => apiClient().post(`/api/invitations/${token}/accept`, { name: 'Once', password: 'once-password-1' })
+    expect((await accept()).status).toBe(200)
+    const again = await accept()
+    expect(again.status).toBe(404)
+    expect(again.body.message).toMatch(/expired or was already used/)
+    expect((await apiClient().get(`/api/invitations/${token}`)).status).toBe(404)
   })
 
   it('answers an oversized body with 413', async () => {

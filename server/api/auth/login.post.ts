@@ -6,15 +6,12 @@ let decoyHash: Promise<string> | undefined
 
 export default defineEventHandler(async (event) => {
   const body = await readValid(event, loginBody)
-  await assertSignInAllowed(event, body.email)
+  await claimSignInAttempt(event, body.email)
   const user = await User.findOne({ where: { email: body.email } })
   const ok = user
     ? await verifyPassword(user.passwordHash, body.password)
     : (await verifyPassword(await (decoyHash ??= hashPassword('decoy-password-for-timing')), body.password), false)
-  if (!user || !ok) {
-    await recordSignInFailure(event, body.email)
-    throw createError({ statusCode: 401, message: 'E-mail or password is wrong' })
-  }
+  if (!user || !ok) throw createError({ statusCode: 401, message: 'E-mail or password is wrong' })
   await clearSignInFailures(body.email)
   await setUserSession(event, { user: sessionUser(user), loggedInAt: Date.now() })
   return { user: sessionUser(user), studios: await studiosOf(user.id) }
