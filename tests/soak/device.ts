@@ -9,6 +9,8 @@ export interface RequestLog {
   latencies: number[]
   byStatus: Map<number, number>
   networkErrors: number
+  /** When each 5xx answer came (epoch ms), to tell an outage's errors from a storm after it. */
+  serverErrorsAt: number[]
 }
 
 export interface Session { cookie: string; address: string }
@@ -38,6 +40,7 @@ export async function openDevice(baseUrl: string, session: Session, pieces: numb
       const res = await fetch(input, { ...init, headers: { ...init.headers as Record<string, string>, ...withSession } })
       requests.latencies.push(performance.now() - started)
       requests.byStatus.set(res.status, (requests.byStatus.get(res.status) ?? 0) + 1)
+      if (res.status >= 500) requests.serverErrorsAt.push(Date.now())
       return res
     }
     catch (error) {

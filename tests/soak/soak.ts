@@ -34,6 +34,8 @@ export interface SoakReport extends Audit {
   p99: number
   byStatus: Record<number, number>
   networkErrors: number
+  /** 5xx answers more than a second after the database was back (a pool that never recovers). */
+  serverErrorsAfterOutage: number
   stillQueued: number
   memoryMb: { start: number; beforeKill: number; end: number }
 }
@@ -75,7 +77,7 @@ export async function runSoak(options: SoakOptions): Promise<SoakReport> {
     const knitters = await makeSoakStudio(sequelize, { knitters: Math.ceil(deviceCount / 2), sharedEvery, chartRows: 4000 })
     server = await startAppServer({ DATABASE_URL: url })
     const app = server
-    const requests: RequestLog = { latencies: [], byStatus: new Map(), networkErrors: 0 }
+    const requests: RequestLog = { latencies: [], byStatus: new Map(), networkErrors: 0, serverErrorsAt: [] }
     const devices: Device[] = []
     for (const [k, knitter] of knitters.entries()) {
       const address = `10.77.${k >> 8}.${k & 255}`
@@ -95,6 +97,7 @@ export async function runSoak(options: SoakOptions): Promise<SoakReport> {
     log(`soak: ${devices.length} devices signed in, server RSS ${memoryMb.start} MB; knitting…`)
 
     const started = Date.now()
+    let databaseBackAt = Number.POSITIVE_INFINITY
     const running = () => Date.now() - started < seconds * 1000
     const knitting = devices.map(d => d.knit(running, stepMs, random))
     const troubles = (async () => {
@@ -103,6 +106,7 @@ export async function runSoak(options: SoakOptions): Promise<SoakReport> {
       mariadb.stop()
       await sleep(outageMs)
       await mariadb.start()
+      databaseBackAt = Date.now()
       log(`soak: database back at ${((Date.now() - started) / 1000).toFixed(1)} s`)
       await sleep(Math.max(0, seconds * 600 - (Date.now() - started)))
       memoryMb.beforeKill = rssMb(app.pid())
@@ -134,6 +138,7 @@ export async function runSoak(options: SoakOptions): Promise<SoakReport> {
       ...audit, stillQueued, memoryMb,
       requests: sorted.length, p50: percentile(sorted, 0.5), p99: percentile(sorted, 0.99),
       byStatus: Object.fromEntries(requests.byStatus), networkErrors: requests.networkErrors,
+      serverErrorsAfterOutage: requests.serverErrorsAt.filter(at => at > databaseBackAt + 1000).length,
     }
   }
   finally {
@@ -147,6 +152,7 @@ export function printSoak(r: SoakReport, print: (line: string) => void = console
   print(`events sent: ${r.recorded}`)
   print(`events stored: ${r.stored} (${r.conflicts} kept as conflicts)`)
   print(`requests: ${r.requests} answered (${Object.entries(r.byStatus).map(([s, n]) => `${s}: ${n}`).join(', ')}), ${r.networkErrors} without an answer`)
+  print(`5xx more than 1 s after the database was back: ${r.serverErrorsAfterOutage}`)
   print(`latency: p50 ${r.p50.toFixed(0)} ms, p99 ${r.p99.toFixed(0)} ms`)
   print(`server memory (RSS): ${r.memoryMb.start} MB at start, ${r.memoryMb.beforeKill} MB before the kill, ${r.memoryMb.end} MB at the end (after the restart)`)
   print(`still queued on devices: ${r.stillQueued}`)
