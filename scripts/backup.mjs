@@ -20,8 +20,8 @@ const { startedHere } = await server.start()
 try {
   const { bytes } = dumpDatabase(server, database, file)
   log(`Backup of ${database}: ${(bytes / 1024).toFixed(0)} KB`)
-  console.log(file)
 }
 finally {
   if (startedHere) server.stop()
 }
+console.log(file) // last, alone on its line, for scripts

@@ -24,7 +24,6 @@ const { startedHere } = await server.start()
 try {
   restoreDatabase(server, resolve(file), database, { replace: args.includes('--replace') })
   log(`Restored ${resolve(file)} into database ${database} on 127.0.0.1:${server.port}`)
-  console.log(database)
 }
 catch (error) {
   console.error(`[floatwise] ${error.message}`)
@@ -33,3 +32,4 @@ catch (error) {
 finally {
   if (startedHere) server.stop()
 }
+if (!process.exitCode) console.log(database) // last, alone on its line, for scripts
