@@ -7,9 +7,10 @@ import { assertPortFree } from './ports.mjs'
 /**
  * A private MariaDB server from Debian's packages: its own data directory under .data/,
  * bound to 127.0.0.1 on its own port and socket, so a system MariaDB on 3306 is never touched.
+ * `dir` names a second server's folder (the soak stops and starts one of its own).
  */
-export function privateMariadb(root, port = Number(process.env.FLOATWISE_DB_PORT ?? 3307)) {
-  const base = `${root}/.data/mariadb`
+export function privateMariadb(root, port = Number(process.env.FLOATWISE_DB_PORT ?? 3307), dir = 'mariadb') {
+  const base = `${root}/.data/${dir}`
   const socket = `${base}/run/mariadb.sock`
   const pidFile = `${base}/run/mariadb.pid`
   const client = args => ['--no-defaults', `--socket=${socket}`, '--user=root', ...args]
@@ -76,5 +77,5 @@ export function privateMariadb(root, port = Number(process.env.FLOATWISE_DB_PORT
     capture(which('mariadb-admin'), client(['shutdown']))
   }
 
-  return { start, stop, ensureDatabase, alive, socket, port, client }
+  return { start, stop, ensureDatabase, alive, socket, port, client, base }
 }

@@ -20,7 +20,7 @@ export function freePort(): Promise<number> {
 
 /** The built server (.output) on a free port against DATABASE_URL, with its own mail fake. */
 export async function startAppServer(extraEnv: Record<string, string> = {}) {
-  if (!process.env.DATABASE_URL) throw new Error('DATABASE_URL is not set: run the tests through `npm test`')
+  if (!process.env.DATABASE_URL && !extraEnv.DATABASE_URL) throw new Error('DATABASE_URL is not set: run the tests through `npm test`')
   const mailDir = mkdtempSync(join(tmpdir(), 'floatwise-mail-'))
   // Each server keeps motif pictures in a folder of its own, so tests can count what it stored.
   const picturesDir = mkdtempSync(join(tmpdir(), 'floatwise-pictures-'))
@@ -56,16 +56,20 @@ export async function startAppServer(extraEnv: Record<string, string> = {}) {
     }
     throw new Error(`The app server did not answer:\n${output}`)
   }
-  async function stop() {
+  async function stop(signal: NodeJS.Signals = 'SIGTERM') {
     if (!child || child.exitCode !== null) return
     const exited = new Promise(r => child!.once('exit', r))
-    child.kill('SIGTERM')
+    child.kill(signal)
     await exited
   }
   await start()
   return {
     baseUrl, mailDir, picturesDir, port,
     restart: async () => { await stop(); await start() },
+    /** A crash rather than a shutdown: requests in flight get no answer (the soak plays it). */
+    kill: () => stop('SIGKILL'),
+    start,
+    pid: () => child?.pid,
     close: async () => { await stop(); await mail.close() },
     output: () => output,
   }
