@@ -2,18 +2,9 @@ import { z } from 'zod'
 import { chartFromRows, KnittingInputError } from '../knitting'
 import { idParam, nameSchema } from './auth'
 
-/** Size limits of a stored motif (the same as a chart made from a picture). */
-export const MOTIF_LIMITS = Object.freeze({ maxWidth: 200, maxHeight: 500 })
+import { MAX_IMPORT_CHARS, MOTIF_LIMITS, motifSorts } from '../motif/limits'
 
-/** Picture uploads: at most 5 MB, at most 4096 × 4096 pixels, PNG, JPEG or WebP (checked by the bytes). */
-export const PICTURE_UPLOAD = Object.freeze({
-  maxBytes: 5 * 1024 * 1024,
-  maxSide: 4096,
-  types: ['image/png', 'image/jpeg', 'image/webp'] as const,
-})
-
-/** The most text an import may carry (a 200 × 500 chart as CSV is about 200 KB). */
-export const MAX_IMPORT_CHARS = 512 * 1024
+export { MAX_IMPORT_CHARS, MOTIF_LIMITS, PICTURE_UPLOAD } from '../motif/limits'
 
 const count = (min: number, max: number) => z.coerce.number('must be a number').int('must be a whole number')
   .min(min, `must be at least ${min}`).max(max, `must be at most ${max}`)
@@ -45,8 +36,7 @@ export const chartRows = z.array(z.string('must be text'), 'must be a list of ro
 
 export const motifIdParams = z.object({ id: idParam })
 
-export const motifSorts = ['name', 'updatedAt', 'width', 'height', 'longest'] as const
-export type MotifSort = typeof motifSorts[number]
+export { motifSorts, type MotifSort } from '../motif/limits'
 
 /** `GET /api/motifs`: a page of a studio's library. `longest` sorts by the longer float of either yarn. */
 export const motifListQuery = z.object({
