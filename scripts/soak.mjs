@@ -1,7 +1,7 @@
 #!/usr/bin/env node
 // `npm run soak`: simulated tablets against the built server and a private MariaDB of the
 // soak's own, through a database stop and an app server kill. Options: --seconds N (60),
-// --devices N (200), --seed N. Ends with `duplicates: N` and `lost: N`; exits 1 unless both are 0.
+// --devices N (200), --seed N. Ends with `duplicates: N` and `lost: N`; exits 1 unless both are 0 and no answer was a 5xx other than a 503 with Retry-After.
 import { spawnSync } from 'node:child_process'
 import { mkdirSync } from 'node:fs'
 import { dirname, join } from 'node:path'

@@ -1,7 +1,10 @@
-import { Op, UniqueConstraintError, type CreationAttributes, type Transaction } from 'sequelize'
-import type { SyncAnswer, SyncPieceState } from '../../shared/types/knit'
+import { UniqueConstraintError, type Transaction } from 'sequelize'
+import type { ProjectStatus, SyncAnswer, SyncPieceState } from '../../shared/types/knit'
 import type { RowEventInput, SyncBody } from '../../shared/validation/knit'
-import { Piece, Project, RowEvent } from '../db/models'
+import {
+  countOtherOpenPieces, insertRowEvents, knittablePieces, lockPiece, lockProjectStatus, pieceStates, storedAndLatest,
+  updatePiecePlace, updateProject, type KnittablePiece, type LatestOfDevice, type LockedPiece, type NewRowEvent, type StoredEventOwner,
+} from '../db/syncQueries'
 
 // POST /api/sync: a device's row events, applied in order, each exactly once.
 //
@@ -13,23 +16,13 @@ import { Piece, Project, RowEvent } from '../db/models'
 
 type Outcome = 'applied' | 'conflict' | 'replay' | 'foreign'
 
-interface KnittablePiece { id: number; projectId: number; totalRows: number }
-
-/** Of `ids`, the pieces this person knits (their own project, in a studio they belong to). */
-async function knittablePieces(userId: number, ids: number[]): Promise<Map<number, KnittablePiece>> {
-  if (!ids.length) return new Map()
-  const studios = [...(await rolesByStudio(userId)).keys()]
-  const rows = await Piece.findAll({
-    where: { id: ids },
-    attributes: ['id', 'projectId', 'totalRows'],
-    include: [{ model: Project, as: 'project', attributes: [], where: { knitterId: userId, studioId: studios } }],
-  })
-  return new Map(rows.map(p => [p.id, { id: p.id, projectId: p.projectId, totalRows: p.totalRows }]))
-}
+/** What a run of events leaves behind: their outcomes and the piece's state at the commit. */
+interface RunResult { outcomes: Outcome[]; state: SyncPieceState }
 
 export async function syncDevice(userId: number, body: SyncBody): Promise<SyncAnswer> {
   const { deviceId, events } = body
-  const pieces = await knittablePieces(userId, [...new Set([...events.map(e => e.pieceId), ...(body.pieceIds ?? [])])])
+  const asked = [...new Set([...events.map(e => e.pieceId), ...(body.pieceIds ?? [])])]
+  const pieces = new Map(asked.length ? (await knittablePieces(useDb(), userId, asked)).map(p => [p.id, p]) : [])
   // Bounds are checked for the whole batch before anything is stored.
   events.forEach((e, i) => {
     const piece = pieces.get(e.pieceId)
@@ -39,7 +32,8 @@ export async function syncDevice(userId: number, body: SyncBody): Promise<SyncAn
     }
   })
   const answer: SyncAnswer = { accepted: [], rejected: [], pieces: [] }
-  const touched = new Set<number>()
+  // The state each piece was left in by its last run (the run held the piece's lock).
+  const states = new Map<number, SyncPieceState>()
   // Consecutive events of one piece are stored in one transaction (a device drains its outbox
   // in order, so a batch is mostly runs of the same piece): one lock and one commit per run.
   for (let i = 0; i < events.length;) {
@@ -52,15 +46,22 @@ export async function syncDevice(userId: number, body: SyncBody): Promise<SyncAn
       for (const e of run) answer.rejected.push({ id: e.id, reason: 'not a piece you are knitting' })
       continue
     }
-    const outcomes = await storeRowEvents(userId, deviceId, piece, run)
+    const { outcomes, state } = await storeRowEvents(userId, deviceId, piece, run)
     run.forEach((e, k) => {
       if (outcomes[k] === 'foreign') answer.rejected.push({ id: e.id, reason: 'this event id belongs to another event' })
       else answer.accepted.push(e.id)
     })
-    touched.add(piece.id)
+    states.set(piece.id, state) // a later run of the same piece replaces it in place
   }
-  for (const id of body.pieceIds ?? []) if (pieces.has(id)) touched.add(id)
-  for (const id of touched) answer.pieces.push(await pieceState(id, deviceId))
+  const onlyAsked = (body.pieceIds ?? []).filter(id => pieces.has(id) && !states.has(id))
+  if (onlyAsked.length) {
+    const rows = new Map((await pieceStates(useDb(), onlyAsked, deviceId)).map(r => [r.id, r]))
+    for (const id of onlyAsked) {
+      const row = rows.get(id)
+      if (row) states.set(id, pieceState(id, row, row.latestOutcome ? { outcome: row.latestOutcome, toRows: row.latestToRows! } : undefined))
+    }
+  }
+  answer.pieces = [...states.values()]
   return answer
 }
 
@@ -68,61 +69,69 @@ export async function syncDevice(userId: number, body: SyncBody): Promise<SyncAn
  * A run of one piece's events in one transaction: the project, then the piece, locked (always
  * in that order), then each event decided in device order exactly as if it came alone.
  */
-async function storeRowEvents(userId: number, deviceId: string, target: KnittablePiece, events: RowEventInput[]): Promise<Outcome[]> {
+async function storeRowEvents(userId: number, deviceId: string, target: KnittablePiece, events: RowEventInput[]): Promise<RunResult> {
+  const db = useDb()
   try {
     let justFinished = false
-    const outcomes = await useDb().transaction(async (transaction) => {
+    const result = await db.transaction(async (transaction): Promise<RunResult> => {
       // Locking the project first serialises every step of its pieces, so the reads below see
       // the latest committed state (finishing the last piece is seen by exactly one step).
-      const project = await Project.findByPk(target.projectId, { lock: transaction.LOCK.UPDATE, transaction, attributes: ['id', 'status', 'startedAt', 'finishedAt'] })
-      const piece = await Piece.findByPk(target.id, { lock: transaction.LOCK.UPDATE, transaction, attributes: { exclude: ['timeline'] } })
-      const known = new Map((await RowEvent.findAll({ where: { id: events.map(e => e.id) }, transaction })).map(r => [r.id, r]))
-      const previous = await RowEvent.findOne({ where: { pieceId: piece!.id, deviceId }, order: [['seq', 'DESC']], attributes: ['outcome'], transaction })
-      let lastOutcome = previous?.outcome
+      const status = (await lockProjectStatus(db, target.projectId, transaction))!
+      const piece = (await lockPiece(db, target.id, transaction))!
+      const { stored, latest } = await storedAndLatest(db, events.map(e => e.id), target.id, deviceId, transaction)
+      let last = latest
       let moved: { to: number; at: Date } | null = null
-      const rows: CreationAttributes<RowEvent>[] = []
+      const rows: NewRowEvent[] = []
       const seen = new Set<string>()
+      const now = new Date()
       const outcomes = events.map((e): Outcome => {
-        const existing = known.get(e.id)
+        const existing = stored.get(e.id)
         if (existing) return sameEvent(existing, userId, e) ? 'replay' : 'foreign'
         if (seen.has(e.id)) return 'replay' // the same new event twice in one batch
         seen.add(e.id)
-        const applies = e.version === piece!.version && (lastOutcome !== 'conflict' || e.kind === 'jump')
-        const now = new Date()
+        const applies = e.version === piece.version && (last?.outcome !== 'conflict' || e.kind === 'jump')
+        const outcome = applies ? 'applied' : 'conflict'
         rows.push({
-          id: e.id, pieceId: piece!.id, userId, deviceId, kind: e.kind, fromRows: e.from, toRows: e.to, version: e.version,
-          at: new Date(e.at), receivedAt: now, outcome: applies ? 'applied' : 'conflict',
+          id: e.id, pieceId: target.id, userId, deviceId, kind: e.kind, fromRows: e.from, toRows: e.to, version: e.version,
+          at: new Date(e.at), receivedAt: now, outcome,
         })
-        lastOutcome = applies ? 'applied' : 'conflict'
+        last = { outcome, toRows: e.to }
         if (!applies) return 'conflict'
-        piece!.version += 1
+        piece.version += 1
         moved = { to: e.to, at: now }
         return 'applied'
       })
-      if (rows.length) await RowEvent.bulkCreate(rows, { transaction })
-      const last = moved as { to: number; at: Date } | null
-      if (last) justFinished = await movePiece(project!, piece!, last.to, deviceId, last.at, transaction)
-      return outcomes
+      await insertRowEvents(db, rows, transaction)
+      const step = moved as { to: number; at: Date } | null
+      if (step) justFinished = await movePiece(target, status, piece, step.to, deviceId, step.at, transaction)
+      return { outcomes, state: pieceState(target.id, piece, last) }
     })
     // After the commit, so a mail never announces a finish that was rolled back.
     if (justFinished) await mailProjectFinished(target.projectId)
-    return outcomes
+    return result
   }
   catch (error) {
+    if (!(error instanceof UniqueConstraintError)) throw error
     // Two requests carrying the same new event: the second insert loses on the primary key.
     // Decide that run again one event at a time, now that the other request's rows are visible.
-    if (!(error instanceof UniqueConstraintError) || events.length === 1) {
-      if (!(error instanceof UniqueConstraintError)) throw error
-      const existing = await RowEvent.findByPk(events[0]!.id)
-      return [existing && sameEvent(existing, userId, events[0]!) ? 'replay' : 'foreign']
+    if (events.length === 1) {
+      const { stored, latest } = await storedAndLatest(db, [events[0]!.id], target.id, deviceId)
+      const existing = stored.get(events[0]!.id)
+      const piece = (await pieceStates(db, [target.id], deviceId))[0]!
+      return { outcomes: [existing && sameEvent(existing, userId, events[0]!) ? 'replay' : 'foreign'], state: pieceState(target.id, piece, latest) }
     }
     const outcomes: Outcome[] = []
-    for (const e of events) outcomes.push(...await storeRowEvents(userId, deviceId, target, [e]))
-    return outcomes
+    let state: SyncPieceState | undefined
+    for (const e of events) {
+      const one = await storeRowEvents(userId, deviceId, target, [e])
+      outcomes.push(...one.outcomes)
+      state = one.state
+    }
+    return { outcomes, state: state! }
   }
 }
 
-function sameEvent(stored: RowEvent, userId: number, e: RowEventInput) {
+function sameEvent(stored: StoredEventOwner, userId: number, e: RowEventInput) {
   return stored.userId === userId && stored.pieceId === e.pieceId
 }
 
@@ -130,42 +139,36 @@ function sameEvent(stored: RowEvent, userId: number, e: RowEventInput) {
  * The piece's new place (its version was already counted up per applied event), and the project's
  * status. True when this step finished the project.
  */
-async function movePiece(project: Project, piece: Piece, to: number, deviceId: string, now: Date, transaction: Transaction): Promise<boolean> {
+async function movePiece(target: KnittablePiece, status: ProjectStatus, piece: LockedPiece, to: number, deviceId: string, now: Date, transaction: Transaction): Promise<boolean> {
+  const db = useDb()
   const done = to >= piece.totalRows
   piece.completedRows = to
   piece.lastDeviceId = deviceId
   piece.lastKnittedAt = now
   piece.finishedAt = done ? (piece.finishedAt ?? now) : null
-  await piece.save({ transaction })
+  piece.updatedAt = now
+  await updatePiecePlace(db, target.id, piece, transaction)
 
-  if (project.status === 'planned') {
-    project.status = 'knitting'
-    project.startedAt = now
-  }
-  const othersOpen = done
-    ? await Piece.count({ where: { projectId: project.id, id: { [Op.ne]: piece.id }, finishedAt: null }, transaction })
-    : 1
+  const change: Parameters<typeof updateProject>[2] = { status }
+  if (status === 'planned') Object.assign(change, { status: 'knitting', startedAt: now })
+  const othersOpen = done ? await countOtherOpenPieces(db, target.projectId, target.id, transaction) : 1
   let finished = false
-  if (othersOpen === 0 && project.status !== 'finished') {
-    project.status = 'finished'
-    project.finishedAt = now
+  if (othersOpen === 0 && change.status !== 'finished') {
+    Object.assign(change, { status: 'finished', finishedAt: now })
     finished = true
   }
-  else if (othersOpen > 0 && project.status === 'finished') {
+  else if (othersOpen > 0 && change.status === 'finished') {
     // A finished piece was taken back (unravelled rows): the project is being knitted again.
-    project.status = 'knitting'
-    project.finishedAt = null
+    Object.assign(change, { status: 'knitting', finishedAt: null })
   }
-  if (project.changed()) await project.save({ transaction })
+  if (change.status !== status) await updateProject(db, target.projectId, change, now, transaction)
   return finished
 }
 
 /** The piece's authoritative place, and whether this device's latest step on it is a standing conflict. */
-async function pieceState(pieceId: number, deviceId: string): Promise<SyncPieceState> {
-  const piece = (await Piece.findByPk(pieceId, { attributes: { exclude: ['timeline'] } }))!
-  const latest = await RowEvent.findOne({ where: { pieceId, deviceId }, order: [['seq', 'DESC']], attributes: ['outcome', 'toRows'] })
+function pieceState(id: number, piece: LockedPiece, latest: LatestOfDevice | undefined): SyncPieceState {
   return {
-    id: piece.id,
+    id,
     completedRows: piece.completedRows,
     totalRows: piece.totalRows,
     version: piece.version,

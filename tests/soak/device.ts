@@ -11,6 +11,8 @@ export interface RequestLog {
   networkErrors: number
   /** When each 5xx answer came (epoch ms), to tell an outage's errors from a storm after it. */
   serverErrorsAt: number[]
+  /** 503 answers without a Retry-After header (a 503 must say when to come back). */
+  unavailableWithoutRetryAfter: number
 }
 
 export interface Session { cookie: string; address: string }
@@ -41,6 +43,7 @@ export async function openDevice(baseUrl: string, session: Session, pieces: numb
       requests.latencies.push(performance.now() - started)
       requests.byStatus.set(res.status, (requests.byStatus.get(res.status) ?? 0) + 1)
       if (res.status >= 500) requests.serverErrorsAt.push(Date.now())
+      if (res.status === 503 && !res.headers.get('retry-after')) requests.unavailableWithoutRetryAfter += 1
       return res
     }
     catch (error) {

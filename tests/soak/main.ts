@@ -1,4 +1,5 @@
 // `npm run soak` (through scripts/soak.mjs, which does the set-up): options --seconds N, --devices N, --seed N.
+// Exits 1 on a lost or duplicated event, or on any 5xx but a 503 with Retry-After.
 import { printSoak, runSoak } from './soak'
 
 const arg = (name: string, fallback: number) => {
@@ -12,4 +13,5 @@ const report = await runSoak({
 })
 printSoak(report)
 const clean = report.duplicates === 0 && report.lost === 0 && report.piecesOff === 0 && report.stillQueued === 0
+  && report.otherServerErrors === 0 && report.unavailableWithoutRetryAfter === 0
 process.exit(clean ? 0 : 1)

@@ -36,6 +36,11 @@ export interface SoakReport extends Audit {
   networkErrors: number
   /** 5xx answers more than a second after the database was back (a pool that never recovers). */
   serverErrorsAfterOutage: number
+  /** 503 answers (the database not answering: the client keeps its rows and retries). */
+  unavailable: number
+  /** Every other 5xx, a 500 above all: there should be none, outage or not. */
+  otherServerErrors: number
+  unavailableWithoutRetryAfter: number
   stillQueued: number
   memoryMb: { start: number; beforeKill: number; end: number }
 }
@@ -77,7 +82,7 @@ export async function runSoak(options: SoakOptions): Promise<SoakReport> {
     const knitters = await makeSoakStudio(sequelize, { knitters: Math.ceil(deviceCount / 2), sharedEvery, chartRows: 4000 })
     server = await startAppServer({ DATABASE_URL: url })
     const app = server
-    const requests: RequestLog = { latencies: [], byStatus: new Map(), networkErrors: 0, serverErrorsAt: [] }
+    const requests: RequestLog = { latencies: [], byStatus: new Map(), networkErrors: 0, serverErrorsAt: [], unavailableWithoutRetryAfter: 0 }
     const devices: Device[] = []
     for (const [k, knitter] of knitters.entries()) {
       const address = `10.77.${k >> 8}.${k & 255}`
@@ -139,6 +144,9 @@ export async function runSoak(options: SoakOptions): Promise<SoakReport> {
       requests: sorted.length, p50: percentile(sorted, 0.5), p99: percentile(sorted, 0.99),
       byStatus: Object.fromEntries(requests.byStatus), networkErrors: requests.networkErrors,
       serverErrorsAfterOutage: requests.serverErrorsAt.filter(at => at > databaseBackAt + 1000).length,
+      unavailable: requests.byStatus.get(503) ?? 0,
+      otherServerErrors: [...requests.byStatus].filter(([status]) => status >= 500 && status !== 503).reduce((n, [, count]) => n + count, 0),
+      unavailableWithoutRetryAfter: requests.unavailableWithoutRetryAfter,
     }
   }
   finally {
@@ -152,6 +160,7 @@ export function printSoak(r: SoakReport, print: (line: string) => void = console
   print(`events sent: ${r.recorded}`)
   print(`events stored: ${r.stored} (${r.conflicts} kept as conflicts)`)
   print(`requests: ${r.requests} answered (${Object.entries(r.byStatus).map(([s, n]) => `${s}: ${n}`).join(', ')}), ${r.networkErrors} without an answer`)
+  print(`503 (database not answering): ${r.unavailable}, of which without Retry-After: ${r.unavailableWithoutRetryAfter}; other 5xx (500 …): ${r.otherServerErrors}`)
   print(`5xx more than 1 s after the database was back: ${r.serverErrorsAfterOutage}`)
   print(`latency: p50 ${r.p50.toFixed(0)} ms, p99 ${r.p99.toFixed(0)} ms`)
   print(`server memory (RSS): ${r.memoryMb.start} MB at start, ${r.memoryMb.beforeKill} MB before the kill, ${r.memoryMb.end} MB at the end (after the restart)`)
