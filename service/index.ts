@@ -3,5 +3,5 @@ export { openFloatwiseDb, getDeviceId, plainData, type FloatwiseDb, type OpenOpt
 export { recordStep, resolveConflict, savePiece, readPieceState, StepError, type StepInput, type ClientClock, type PieceState } from './progress'
 export { createSyncer, type Syncer, type SyncerOptions, type SyncResult } from './sync'
 export { readSyncState, type SyncFailure, type SyncState, type SyncStatus } from './syncStore'
-export { backoffDelay } from './backoff'
+export { backoffDelay, retryAfterMs } from './backoff'
 export type * from './types'

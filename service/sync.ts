@@ -74,7 +74,8 @@ export function createSyncer(options: SyncerOptions) {
     else {
       failures += 1
       // A 4xx will fail the same way again: keep the events, retry only at the slowest pace.
-      retryAt = Date.now() + (error.kind === 'bad-request' ? backoffCapMs : backoffDelay(failures, random))
+      // A server that says how long to wait (a 503 while its database restarts) is not asked sooner.
+      retryAt = Date.now() + (error.kind === 'bad-request' ? backoffCapMs : Math.max(backoffDelay(failures, random), error.retryAfterMs ?? 0))
     }
     await writeMeta(db, 'lastError', error)
   }

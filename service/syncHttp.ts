@@ -1,3 +1,4 @@
+import { retryAfterMs } from './backoff'
 import type { SyncFailure } from './syncStore'
 import type { SyncRequest, SyncResponse } from './types'
 
@@ -28,8 +29,9 @@ export async function postSync(fetchFn: typeof globalThis.fetch, baseUrl: string
   const text = await res.text().catch(() => '')
   if (res.status === 401) return { ok: false, error: { kind: 'signed-out', status: 401, message: 'Signed out: sign in again to sync.' } }
   if (!res.ok) {
-    const kind = res.status >= 500 ? 'server' : 'bad-request'
-    return { ok: false, error: { kind, status: res.status, message: text.slice(0, 500) || res.statusText } }
+    const kind = res.status >= 500 || res.status === 429 ? 'server' : 'bad-request'
+    const wait = retryAfterMs(res.headers.get('retry-after'))
+    return { ok: false, error: { kind, status: res.status, message: text.slice(0, 500) || res.statusText, ...(wait === null ? {} : { retryAfterMs: wait }) } }
   }
   let parsed: unknown
   try { parsed = JSON.parse(text) }

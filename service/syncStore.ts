@@ -13,6 +13,8 @@ export interface SyncFailure {
   status?: number
   message: string
   at: string
+  /** How long the server asked us to wait (its Retry-After), in ms. */
+  retryAfterMs?: number
 }
 
 export interface SyncState {

@@ -48,6 +48,8 @@ export function fakeSyncServer(initial: Record<number, { completedRows: number; 
   const requests: SyncRequest[] = []
   const failures: (FakeFailure | 'ok')[] = []
   const latest = new Map<string, StoredEvent>() // `${deviceId}/${pieceId}`
+  /** Retry-After sent with a 503 (none by default). */
+  let retryAfter: string | null = null
 
   function answer(body: SyncRequest): SyncResponse {
     const accepted: string[] = []
@@ -85,7 +87,7 @@ export function fakeSyncServer(initial: Record<number, { completedRows: number; 
     requests.push(body)
     const failure = failures.shift()
     if (failure === 'network') throw new TypeError('fetch failed')
-    if (typeof failure === 'number') return Response.json({ message: `status ${failure}` }, { status: failure })
+    if (typeof failure === 'number') return Response.json({ message: `status ${failure}` }, { status: failure, headers: failure === 503 && retryAfter ? { 'retry-after': retryAfter } : {} })
     const result = answer(body)
     if (failure === 'lost-answer') throw new TypeError('fetch failed') // applied, but the answer never arrived
     return Response.json(result)
@@ -94,6 +96,7 @@ export function fakeSyncServer(initial: Record<number, { completedRows: number; 
   return {
     fetch: fetch as typeof globalThis.fetch,
     pieces, stored, requests, failures,
+    setRetryAfter(value: string | null) { retryAfter = value },
     piece: (id = 1) => pieces.get(id)!,
     /** Moves a piece as another device would. */
     moveElsewhere(id: number, to: number, deviceId = 'other-device') {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { backoffDelay, createSyncer, readPieceState, recordStep, resolveConflict, type FloatwiseDb, type SyncState } from '../../../service'
+import { backoffDelay, createSyncer, retryAfterMs, readPieceState, recordStep, resolveConflict, type FloatwiseDb, type SyncState } from '../../../service'
 import { deviceWithPiece, fakeSyncServer, type FakeSyncServer } from './helpers'
 
 async function advance(db: FloatwiseDb, count: number, totalRows = 10_000) {
@@ -150,6 +150,32 @@ describe('failures', () => {
     syncer.stop()
     await new Promise(r => setTimeout(r, 800))
     expect(server.requests).toHaveLength(1)
+  })
+
+  it('waits at least as long as a 503\'s Retry-After, and never past the 60 s cap', async () => {
+    const db = await deviceWithPiece()
+    const server = fakeSyncServer()
+    await advance(db, 1)
+    const syncer = syncerFor(db, server)
+    server.setRetryAfter('20') // first backoff would be 1 s
+    server.failures.push(503)
+    await syncer.flush()
+    expect(Math.round((await syncer.state()).retryInMs! / 1000)).toBe(20)
+    server.setRetryAfter('3600')
+    server.failures.push(503)
+    await syncer.flush()
+    expect(Math.round((await syncer.state()).retryInMs! / 1000)).toBe(60)
+    expect((await syncer.state()).pending).toBe(1) // the row is still queued
+    expect((await syncer.flush()).ok).toBe(true)
+  })
+
+  it('reads Retry-After as seconds or as an HTTP date (RFC 9110 §10.2.3)', () => {
+    const now = Date.parse('Wed, 02 Dec 2026 05:00:00 GMT')
+    expect(retryAfterMs('5', now)).toBe(5000)
+    expect(retryAfterMs('Wed, 02 Dec 2026 05:00:30 GMT', now)).toBe(30_000)
+    expect(retryAfterMs('Wed, 02 Dec 2026 04:59:00 GMT', now)).toBe(0)
+    expect(retryAfterMs('soon', now)).toBeNull()
+    expect(retryAfterMs(null, now)).toBeNull()
   })
 
   it('jitters each wait within its upper half and caps it at 60 s', () => {
