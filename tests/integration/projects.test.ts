@@ -210,7 +210,11 @@ describe('demo data', () => {
     expect(detail.pieces.map((p: any) => [p.name, p.totalRows])).toEqual([['Back', 126], ['Front', 126], ['Sleeve', 126], ['Sleeve', 126]])
     expect(detail.pieces[0]).toMatchObject({ completedRows: 126, finishedAt: expect.any(String) })
     const seeded = await RowEvent.findAll({ where: { pieceId: [detail.pieces[0].id, detail.pieces[1].id], deviceId: 'demo-workroom-tablet' }, order: [['seq', 'ASC']] })
-    expect(seeded.map(e => [e.pieceId, e.toRows, e.outcome])).toEqual([[detail.pieces[0].id, 126, 'applied'], [detail.pieces[1].id, 47, 'applied']])
+    // The back in one jump; the front jumped to 23, then a session of 12 pairs to 47 (the studio's pace).
+    expect(seeded.map(e => [e.pieceId, e.kind, e.toRows, e.outcome])).toEqual([
+      [detail.pieces[0].id, 'jump', 126, 'applied'], [detail.pieces[1].id, 'jump', 23, 'applied'],
+      ...Array.from({ length: 12 }, (_, i) => [detail.pieces[1].id, 'advance', 25 + 2 * i, 'applied']),
+    ])
     expect(detail.yarns.map((y: any) => [y.slot, y.name, y.symbol])).toEqual([['A', 'Cream', '●'], ['B', 'Ink blue', '▲']])
     const front = (await knitter.get(`/api/pieces/${detail.pieces[1].id}`)).body
     expect(front.timeline.sections.map((s: any) => s.label)).toEqual(['Welt', 'Marsh wave', 'Shoulder band'])

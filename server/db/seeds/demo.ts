@@ -99,6 +99,25 @@ async function demoPlace(piece: Piece, completedRows: number, at: Date, eventId:
   }, { transaction })
 }
 
+/**
+ * A knitting session on a piece: `pairs` steps of one row pair, about a minute and a half apart
+ * and ending at `end`, as the tablet would have logged them (the studio's pace comes from these).
+ */
+async function demoSession(piece: Piece, pairs: number, end: Date, transaction: Transaction) {
+  const userId = (await Project.findByPk(piece.projectId, { transaction }))!.knitterId
+  let { completedRows: rows, version } = piece
+  for (let i = 0; i < pairs; i++) {
+    const at = new Date(end.getTime() - (pairs - 1 - i) * 90_000 + (i % 3) * 7_000)
+    await RowEvent.create({
+      id: `6a3e1c52-4d7b-4f0e-9a61-0d5c2b7e9${String(i).padStart(3, '0')}`, pieceId: piece.id, userId, deviceId: 'demo-workroom-tablet',
+      kind: 'advance', fromRows: rows, toRows: rows + 2, version, at, receivedAt: at, outcome: 'applied',
+    }, { transaction })
+    rows += 2
+    version += 1
+  }
+  await piece.update({ completedRows: rows, version, lastKnittedAt: end }, { transaction })
+}
+
 /** A jumper in progress (back done, front mid-motif, sleeves to come) and a small cushion not yet started. */
 async function seedProjects(stock: DemoStock, transaction: Transaction) {
   const jumper = demoTimeline(stock, 'Marsh wave', ['Cream', 'Ink blue'], {
@@ -113,7 +132,8 @@ async function seedProjects(stock: DemoStock, transaction: Transaction) {
   const [back, front] = await Piece.findAll({ where: { projectId: project.id }, order: [['position', 'ASC']], transaction })
   const dayAgo = new Date(Date.now() - 24 * 3600_000)
   await demoPlace(back!, back!.totalRows, new Date(dayAgo.getTime() - 2 * 24 * 3600_000), '6a3e1c52-4d7b-4f0e-9a61-0d5c2b7e8f01', transaction)
-  await demoPlace(front!, 47, dayAgo, '6a3e1c52-4d7b-4f0e-9a61-0d5c2b7e8f02', transaction)
+  await demoPlace(front!, 23, new Date(dayAgo.getTime() - 20 * 60_000), '6a3e1c52-4d7b-4f0e-9a61-0d5c2b7e8f02', transaction)
+  await demoSession(front!, 12, dayAgo, transaction)
   await project.update({ status: 'knitting', startedAt: new Date(dayAgo.getTime() - 3 * 24 * 3600_000) }, { transaction })
 
   const cushion = demoTimeline(stock, 'Lantern medallion', ['Moss', 'Cream'], {
