@@ -9,6 +9,8 @@ export default defineNuxtConfig({
   // The whole app is client-rendered: the tablet must reload any page offline from the
   // service worker's cached shell, and SSR pages cannot be served that way (see DEVELOPERS.md).
   ssr: false,
+  // Painted from the HTML alone while the app's scripts load, in place of a blank page.
+  spaLoadingTemplate: 'spa-loading-template.html',
   devtools: { enabled: false },
   modules: [
     '@nuxtjs/tailwindcss',
