@@ -58,6 +58,9 @@ export default defineNuxtConfig({
     // A session cookie is refused 30 days after sign-in (nuxt-auth-utils sets no limit itself).
     session: { maxAge: 30 * 24 * 60 * 60 },
   },
+  // The app learns who is signed in from /api/me (stores/account.ts) and never reads the
+  // module's client session, so its plugin would only add a request the app waits for at start.
+  auth: { loadStrategy: 'none' },
   tailwindcss: {
     cssPath: false,
     configPath: 'tailwind.config.ts',
