@@ -9,6 +9,8 @@ export default defineNuxtConfig({
   // The whole app is client-rendered: the tablet must reload any page offline from the
   // service worker's cached shell, and SSR pages cannot be served that way (see DEVELOPERS.md).
   ssr: false,
+  // Painted from the HTML alone while the app's scripts load, in place of a blank page.
+  spaLoadingTemplate: 'spa-loading-template.html',
   devtools: { enabled: false },
   modules: [
     '@nuxtjs/tailwindcss',
@@ -56,6 +58,9 @@ export default defineNuxtConfig({
     // A session cookie is refused 30 days after sign-in (nuxt-auth-utils sets no limit itself).
     session: { maxAge: 30 * 24 * 60 * 60 },
   },
+  // The app learns who is signed in from /api/me (stores/account.ts) and never reads the
+  // module's client session, so its plugin would only add a request the app waits for at start.
+  auth: { loadStrategy: 'none' },
   tailwindcss: {
     cssPath: false,
     configPath: 'tailwind.config.ts',

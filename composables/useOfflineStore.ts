@@ -1,8 +1,10 @@
+import { createSyncer, openFloatwiseDb } from '~~/service'
+
 /** The signed-in person's offline store and syncer (opened on first use). */
 export function useOfflineStore() {
   const { $offline } = useNuxtApp()
   const account = useAccountStore()
   const userId = account.me?.user.id
   if (!userId) throw new Error('The offline store needs a signed-in person')
-  return { ...$offline.open(userId), state: $offline.state, reloadNeeded: $offline.reloadNeeded }
+  return { ...$offline.open(userId, { openFloatwiseDb, createSyncer }), state: $offline.state, reloadNeeded: $offline.reloadNeeded }
 }

@@ -6,7 +6,7 @@ import { run } from './run.mjs'
 
 // Everything that goes into .output; tests/ and scripts/ do not.
 const inputs = ['app.vue', 'error.vue', 'nuxt.config.ts', 'pwa.config.ts', 'security-headers.ts', 'tailwind.config.ts', 'package-lock.json', 'tsconfig.json',
-  'pages', 'components', 'composables', 'stores', 'layouts', 'middleware', 'plugins', 'assets', 'public', 'server', 'shared', 'service']
+  'spa-loading-template.html', 'pages', 'components', 'composables', 'stores', 'layouts', 'middleware', 'plugins', 'assets', 'public', 'server', 'shared', 'service']
 
 function hashInputs(root) {
   const hash = createHash('sha256')
