@@ -1,21 +1,13 @@
-import { createServer } from 'node:net'
 import * as mariadb from 'mariadb'
 import { createError } from 'h3'
 import { DatabaseError, Sequelize, UniqueConstraintError, ValidationError } from 'sequelize'
 import { describe, expect, it } from 'vitest'
 import { isDatabaseUnavailable } from '../../../server/db/unavailable'
+import { freePort } from '../../support/appServer'
 
-// Real errors from the driver and from Sequelize, made by talking to a port nothing listens on.
-function closedPort(): Promise<number> {
-  return new Promise((resolve, reject) => {
-    const s = createServer()
-    s.once('error', reject)
-    s.listen(0, '127.0.0.1', () => {
-      const { port } = s.address() as { port: number }
-      s.close(() => resolve(port))
-    })
-  })
-}
+// Real errors from the driver and from Sequelize, made by talking to a port nothing listens on
+// (a free port, closed again).
+const closedPort = freePort
 
 const failureOf = async (p: Promise<unknown>) => p.then(() => { throw new Error('expected a failure') }, (e: unknown) => e)
 // h3 wraps whatever a handler throws: the original error becomes the `cause`.
