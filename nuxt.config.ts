@@ -47,10 +47,8 @@ export default defineNuxtConfig({
     // Overridden at run time by NUXT_* variables; scripts/start.mjs sets them.
     mailFrom: 'Floatwise <no-reply@floatwise.test>',
     smtpUrl: '',
-    mailCaptureDir: '',
     // Only the server needs these; the app shell is prerendered, so public values would freeze at build time.
     appUrl: 'http://localhost:3000',
-    devMail: false,
     trustProxy: false,
     // Where the original motif pictures are kept (NUXT_PICTURES_DIR); empty = the `pictures`
     // storage mount below. Any unstorage driver can replace that mount (see README).

@@ -11,15 +11,19 @@ ensureDependencies(root)
 // Loaded after the dependencies are in place.
 const { prepareDatabase } = await import('./lib/setup.mjs')
 const { ensureBuild } = await import('./lib/build.mjs')
-const { startMailFake } = await import('./lib/mail-fake.mjs')
+const { startMailFake, startMailViewer } = await import('./lib/mail-fake.mjs')
 const { start } = await import('./lib/run.mjs')
 
 const { assertPortFree } = await import('./lib/ports.mjs')
 
 const port = Number(process.env.PORT ?? 3000)
 const mailPort = Number(process.env.FLOATWISE_MAIL_PORT ?? 2526)
+const mailViewPort = Number(process.env.FLOATWISE_MAIL_VIEW_PORT ?? 2527)
 await assertPortFree(port, 'the app', 'PORT')
-if (!process.env.SMTP_URL) await assertPortFree(mailPort, 'the local mail fake', 'FLOATWISE_MAIL_PORT')
+if (!process.env.SMTP_URL) {
+  await assertPortFree(mailPort, 'the local mail fake', 'FLOATWISE_MAIL_PORT')
+  await assertPortFree(mailViewPort, 'the local mail fake\'s inbox viewer', 'FLOATWISE_MAIL_VIEW_PORT')
+}
 const { env, stop: stopDatabase } = await prepareDatabase(root, { database: 'floatwise' })
 try {
   ensureBuild(root)
@@ -29,13 +33,14 @@ catch (error) {
   throw error
 }
 
-let mail
+let mail, mailViewer
 if (process.env.SMTP_URL) {
   env.NUXT_SMTP_URL = process.env.SMTP_URL
 }
 else {
   mail = await startMailFake(join(root, '.data/mail'), mailPort)
-  Object.assign(env, { NUXT_SMTP_URL: mail.url, NUXT_MAIL_CAPTURE_DIR: join(root, '.data/mail'), NUXT_DEV_MAIL: 'true' })
+  mailViewer = await startMailViewer(join(root, '.data/mail'), mailViewPort)
+  env.NUXT_SMTP_URL = mail.url
 }
 
 const appUrl = process.env.NUXT_APP_URL ?? `http://localhost:${port}`
@@ -46,7 +51,7 @@ const server = start(process.execPath, [join(root, '.output/server/index.mjs')],
 
 log(`Floatwise is starting on ${appUrl}`)
 log('Demo sign-ins (password floatwise-demo): owner@floatwise.test, designer@floatwise.test, knitter@floatwise.test')
-if (mail) log(`Mail goes to the local fake: read it at ${appUrl}/dev/mail`)
+if (mailViewer) log(`Mail goes to the local fake: read it on this computer only, at ${mailViewer.url}`)
 log('Press Ctrl-C to stop the app and the database.')
 
 let stopping = false
@@ -56,6 +61,7 @@ async function shutdown(code = 0) {
   server.kill('SIGTERM')
   await new Promise(resolve => server.exitCode !== null ? resolve() : server.once('exit', resolve))
   await mail?.close()
+  await mailViewer?.close()
   stopDatabase()
   log('Stopped.')
   process.exit(code)

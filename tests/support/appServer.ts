@@ -33,8 +33,6 @@ export async function startAppServer(extraEnv: Record<string, string> = {}) {
     HOST: '127.0.0.1',
     NODE_ENV: 'production',
     NUXT_SMTP_URL: mail.url,
-    NUXT_MAIL_CAPTURE_DIR: mailDir,
-    NUXT_DEV_MAIL: 'true',
     NUXT_APP_URL: baseUrl,
     NUXT_TRUST_PROXY: 'true', // lets each test sign in from its own address (see throttle.ts)
     NUXT_PICTURES_DIR: picturesDir,

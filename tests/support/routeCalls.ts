@@ -47,7 +47,6 @@ export const roleMatrix: Row[] = [
   { route: 'POST /api/auth/logout', call: () => ({ method: 'POST', path: '/api/auth/logout' }), expect: same(200) },
   { route: 'POST /api/auth/password-reset', call: () => ({ method: 'POST', path: '/api/auth/password-reset', body: { email: uniqueEmail('matrix') } }), expect: same(202) },
   { route: 'POST /api/auth/password-reset/confirm', call: () => ({ method: 'POST', path: '/api/auth/password-reset/confirm', body: { token: 'x'.repeat(43), password: 'matrix-password' } }), expect: same(400) },
-  { route: 'GET /api/dev/mail', call: () => ({ method: 'GET', path: '/api/dev/mail' }), expect: same(200) },
   { route: 'GET /api/studios/[studioId]/members', call: f => ({ method: 'GET', path: `/api/studios/${f.studio.id}/members` }), expect: studioMember(200) },
   { route: 'GET /api/studios/[studioId]/production', call: f => ({ method: 'GET', path: `/api/studios/${f.studio.id}/production` }), expect: studioDesigner(200) },
   { route: 'POST /api/studios/[studioId]/invitations', call: f => ({ method: 'POST', path: `/api/studios/${f.studio.id}/invitations`, body: { email: uniqueEmail('matrix'), role: 'knitter' } }), expect: studioOwner(201) },
