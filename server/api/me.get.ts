@@ -1,4 +1,7 @@
+import { User } from '../db/models'
+
 export default defineEventHandler(async (event) => {
   const user = await requireUser(event)
-  return { user, studios: await studiosOf(user.id) }
+  const row = await User.findByPk(user.id, { attributes: ['emailConfirmedAt'] })
+  return { user, emailConfirmed: !!row?.emailConfirmedAt, studios: await studiosOf(user.id) }
 })

@@ -5,6 +5,7 @@ import * as m0002 from './migrations/0002-studio-stock'
 import * as m0003 from './migrations/0003-projects'
 import * as m0004 from './migrations/0004-motif-library'
 import * as m0005 from './migrations/0005-planner'
+import * as m0006 from './migrations/0006-sessions-and-mail'
 
 // Listed by hand (no file glob) so the bundled server and scripts find the same set.
 // Append new migrations; never edit one that has shipped.
@@ -14,6 +15,7 @@ const migrations = [
   { name: '0003-projects', ...m0003 },
   { name: '0004-motif-library', ...m0004 },
   { name: '0005-planner', ...m0005 },
+  { name: '0006-sessions-and-mail', ...m0006 },
 ]
 
 export function createMigrator(sequelize: Sequelize) {

@@ -3,8 +3,11 @@ import { Membership, Studio, User } from '../db/models'
 import type { StudioSummary } from '../../shared/types/studio'
 
 /** A new person with their personal studio, which they own. */
-export async function createAccount(input: { email: string; name: string; password: string }, transaction: Transaction) {
-  const user = await User.create({ email: input.email, name: input.name, passwordHash: await hashPassword(input.password) }, { transaction })
+export async function createAccount(input: { email: string; name: string; password: string; confirmed?: boolean }, transaction: Transaction) {
+  const user = await User.create({
+    email: input.email, name: input.name, passwordHash: await hashPassword(input.password),
+    emailConfirmedAt: input.confirmed ? new Date() : null,
+  }, { transaction })
   const studio = await Studio.create({ name: `${input.name}’s studio`, personal: true }, { transaction })
   await Membership.create({ studioId: studio.id, userId: user.id, role: 'owner' }, { transaction })
   return user

@@ -21,7 +21,7 @@ export async function mailProjectFinished(projectId: number) {
     ].join('\n')
     for (const owner of owners) {
       const email = (owner as Membership & { User?: User }).User?.email
-      if (email) await sendMail({ to: email, subject: `Finished: ${project.name}`, text })
+      if (email) await queueMail(null, { kind: 'project-finished', to: email, subject: `Finished: ${project.name}`, text, studioId: project.studioId })
     }
   }
   catch (error) {

@@ -6,5 +6,10 @@ declare module '#auth-utils' {
     email: string
     name: string
   }
+  interface UserSession {
+    // The session's id, checked against `user_sessions` on every request (server/utils/sessions.ts).
+    sid?: string
+    loggedInAt?: number
+  }
 }
 export {}

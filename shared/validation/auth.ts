@@ -13,6 +13,12 @@ export const loginBody = z.object({ email: emailSchema, password: z.string().min
 export const resetRequestBody = z.object({ email: emailSchema })
 export const resetConfirmBody = z.object({ token: tokenSchema, password: passwordSchema })
 export const tokenParams = z.object({ token: tokenSchema })
+export const confirmAddressBody = z.object({ token: tokenSchema })
+export const passwordChangeBody = z.object({ current: z.string().min(1, 'is required').max(200), password: passwordSchema })
+export const sessionParams = z.object({ id: z.preprocess(
+  v => (typeof v === 'string' && /^\d{1,10}$/.test(v) ? Number(v) : v),
+  z.number('must be a whole number').int('must be a whole number').positive('must be a positive id').max(2 ** 31),
+) })
 export const invitationAcceptBody = z.object({
   // Needed only when the invited address has no account yet.
   name: nameSchema.optional(),

@@ -35,7 +35,7 @@ describe('accounts', () => {
     expect(second.status).toBe(first.status)
     expect(second.body).toEqual(first.body)
     await waitForMail(email, 2)
-    expect(mailTo(email).map(m => m.subject)).toEqual(['Welcome to Floatwise', 'Someone tried to make a Floatwise account with your address'])
+    expect(mailTo(email).map(m => m.subject)).toEqual(['Confirm your address for Floatwise', 'Someone tried to make a Floatwise account with your address'])
     // The original password still works; the second one never took.
     expect((await apiClient().post('/api/auth/login', { email, password: 'first-password' })).status).toBe(200)
     expect((await apiClient().post('/api/auth/login', { email, password: 'other-password' })).status).toBe(401)

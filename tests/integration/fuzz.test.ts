@@ -4,7 +4,7 @@ import { apiClient, signedIn, type ApiResponse } from '../support/api'
 import { closeTestDb, fixturePassword, makeProject, makeStock, makeStudio } from '../support/db'
 import { brokenBody, hostileQueryValue, hostileSegment, hostileValue, pathsOf, withValueAt } from '../support/fuzzValues'
 import { chartPicture } from '../support/pictures'
-import { apiRoutes, roleMatrix, type Call, type Fixture } from '../support/routeCalls'
+import { apiRoutes, clientFor, roleMatrix, spareSession, type Call, type Fixture } from '../support/routeCalls'
 import { storedRows } from '../support/storedRows'
 import { Machine, Plan, Swatch } from '../../server/db/models'
 
@@ -31,6 +31,8 @@ const foreignParams: Record<string, (g: Foreign) => Record<string, number | stri
   '/api/studios/[studioId]': g => ({ studioId: g.studioId }),
   // A token is no studio's id: another studio's pending invitation is just a valid link.
   '/api/invitations/[token]': () => ({}),
+  // Another person's device: one's own sessions only.
+  '/api/me/sessions/[id]': g => ({ id: g.session.id }),
 }
 
 /** Body fields that name a row, and which row of the other studio to put there. */
@@ -53,7 +55,8 @@ async function foreignStock(f: Fixture) {
   const swatch = await Swatch.create({ studioId, machineId: null, mainYarnId: null, contrastYarnId: null, stitches: 30, rows: 40, width: 10, height: 10, unit: 'cm', grams: 6 })
   const plan = await Plan.create({ studioId, name: 'Foreign plan', machineId: null, swatchId: null, yarns: [], published: true, createdBy: null, updatedBy: null })
   const { project, pieces } = await makeProject({ studioId, knitterId: f.outsider.id, pieces: ['Back'] })
-  return { studioId, ...stock, machine, swatch, plan, project, piece: pieces[0]! }
+  const session = await spareSession(f.outsider)
+  return { studioId, ...stock, machine, swatch, plan, project, piece: pieces[0]!, session }
 }
 
 let f: Fixture
@@ -88,8 +91,11 @@ function expectClearRefusal(res: ApiResponse, what: string) {
 /** Sends one call as the owner; a refusal must be clear and, for a write, store nothing. */
 async function probe(call: Call, headers: Record<string, string> = {}, what = `${call.method} ${call.path}`) {
   const write = call.method !== 'GET'
+  // A row that ends sessions runs on a session (or as a person) of its own: see Row.ends.
+  const row = roleMatrix.find(r => r.ends && r.route === `${call.method} ${routeOf(call.path)}`)
+  const client = row ? (await clientFor(f, 'owner', row, asOwner)).client : asOwner()
   const before = write ? await storedRows(studioIds) : undefined
-  const res = await asOwner().request(call.method, call.path, call.body, headers)
+  const res = await client.request(call.method, call.path, call.body, headers)
   expect(res.status, `${what} → ${res.status} ${JSON.stringify(res.body)}`).toBeLessThan(500)
   if (res.status >= 400) {
     expectClearRefusal(res, what)
@@ -97,6 +103,9 @@ async function probe(call: Call, headers: Record<string, string> = {}, what = `$
   }
   return res
 }
+
+/** The route a concrete path belongs to, for the few rows that end sessions (no parameters). */
+const routeOf = (path: string) => path.split('?')[0]!
 
 const fuzz = (property: fc.IAsyncProperty<[unknown]> | fc.IAsyncProperty<[string]>, numRuns = runs) =>
   fc.assert(property as fc.IAsyncProperty<unknown[]>, { numRuns, seed, endOnFailure: true })

@@ -1,9 +1,10 @@
-import { randomUUID } from 'node:crypto'
+import { createHash, randomUUID } from 'node:crypto'
 import * as iron from 'iron-webcrypto'
 import { afterAll, describe, expect, it } from 'vitest'
 import { apiClient, signedIn, uniqueEmail } from '../support/api'
 import { closeTestDb, fixturePassword, makeStudio, makeUser } from '../support/db'
 import { storedRows } from '../support/storedRows'
+import { UserSession } from '../../server/db/models'
 import { linkIn, waitForMail } from '../support/mail'
 
 afterAll(closeTestDb)
@@ -12,9 +13,11 @@ afterAll(closeTestDb)
  * A session cookie sealed the way the server seals them (h3's defaults, our password), for
  * a user, created `ageMs` ago, optionally with a seal that has itself expired.
  */
-async function sealedSession(user: { id: number; email: string; name: string }, ageMs: number, sealExpired = false) {
+async function sealedSession(user: { id: number; email: string; name: string }, ageMs: number, sealExpired = false, sid: string | null = randomUUID()) {
   const createdAt = Date.now() - ageMs
-  const session = { id: randomUUID(), createdAt, data: { user, loggedInAt: createdAt } }
+  // A live session row for the id, as signing in makes (server/utils/sessions.ts).
+  if (sid) await UserSession.create({ userId: user.id, sidHash: createHash('sha256').update(sid).digest('hex'), device: 'sealed by the test', address: '', lastSeenAt: new Date() })
+  const session = { id: randomUUID(), createdAt, data: { user, loggedInAt: createdAt, ...(sid ? { sid } : {}) } }
   // An expired seal: sealed "two minutes ago" for one second (past the 60 s clock skew allowed).
   const expiry = sealExpired ? { ttl: 1000, localtimeOffsetMsec: -120_000 } : { ttl: 0 }
   // Node's WebCrypto types and iron's disagree on buffer types only; the object is the one h3 uses.
@@ -75,6 +78,10 @@ describe('security at the edge', () => {
     const lapsed = apiClient()
     lapsed.cookie = await sealedSession(session, 0, true)
     expect((await lapsed.get('/api/me')).status).toBe(401)
+    // Sealed right, but naming no session (a cookie from before sessions were kept): no session.
+    const nameless = apiClient()
+    nameless.cookie = await sealedSession(session, 0, false, null)
+    expect((await nameless.get('/api/me')).status).toBe(401)
   })
 
   it('tells nobody whether an address is registered: sign-up, sign-in, reset, invitation and sharing answer alike', async () => {

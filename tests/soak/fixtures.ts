@@ -24,7 +24,7 @@ export async function makeSoakStudio(db: Sequelize, options: { knitters: number;
   const knitters: SoakKnitter[] = []
   for (let k = 0; k < options.knitters; k++) {
     const shared = k % options.sharedEvery === 0
-    const user = await User.create({ email: `soak-${run}-${k}@example.test`, name: `Soak knitter ${k}`, passwordHash })
+    const user = await User.create({ email: `soak-${run}-${k}@example.test`, name: `Soak knitter ${k}`, passwordHash, emailConfirmedAt: new Date() })
     await Membership.create({ studioId: studio.id, userId: user.id, role: 'knitter' })
     const project = await db.transaction(t => insertProject({
       studioId: studio.id, knitterId: user.id, name: `Soak project ${k}`, yarns: yarns.map(y => ({ ...y, yarnId: null })),

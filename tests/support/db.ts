@@ -31,7 +31,7 @@ let fixtureHash: Promise<string> | undefined
 export async function makeUser(tag: string) {
   testDb()
   fixtureHash ??= new Hash(new Scrypt({})).make(fixturePassword)
-  return User.create({ email: uniqueEmail(tag), name: `Test ${tag}`, passwordHash: await fixtureHash })
+  return User.create({ email: uniqueEmail(tag), name: `Test ${tag}`, passwordHash: await fixtureHash, emailConfirmedAt: new Date() })
 }
 
 /** A studio with one person per role, plus people for tests to change, and an outsider in another studio. */

@@ -1,10 +1,10 @@
 import { randomUUID } from 'node:crypto'
 import { readdirSync, statSync } from 'node:fs'
 import { join, relative } from 'node:path'
-import { signedIn, uniqueEmail } from './api'
+import { signedIn, uniqueEmail, type ApiClient } from './api'
 import { linkIn, waitForMail } from './mail'
 import { fixturePassword, makeProject, makeStock, makeUser, type makeStudio } from './db'
-import { Machine, Membership, Motif, Plan, PlanPiece, Swatch, Yarn } from '../../server/db/models'
+import { Machine, Membership, Motif, Plan, PlanPiece, Swatch, UserSession, Yarn, type User } from '../../server/db/models'
 import type { PlanSection } from '../../shared/types/plan'
 import { motifRecord } from '../../server/db/motifs'
 import { chartPicture, pictureForm } from './pictures'
@@ -18,7 +18,26 @@ export type Who = 'anonymous' | 'knitter' | 'designer' | 'owner' | 'outsider'
 export const everyone: Who[] = ['anonymous', 'knitter', 'designer', 'owner', 'outsider']
 export type Fixture = Awaited<ReturnType<typeof makeStudio>>
 export interface Call { method: string; path: string; body?: unknown }
-export interface Row { route: string; call: (f: Fixture, who: Who) => Call | Promise<Call>; expect: Record<Who, number> }
+export interface Row {
+  route: string
+  call: (f: Fixture, who: Who, me?: User) => Call | Promise<Call>
+  expect: Record<Who, number>
+  /**
+   * The call ends sessions: 'session' ends the caller's own (sign-out, sign-in), so it runs on a
+   * sign-in of its own; 'person' ends the person's other sessions, so it runs as a new person
+   * with the same role. Shared sessions of the test stay alive either way.
+   */
+  ends?: 'session' | 'person'
+}
+
+/** The client a row's call is sent with, for a caller (see Row.ends). */
+export async function clientFor(f: Fixture, who: Who, row: Row, shared: () => ApiClient): Promise<{ client: ApiClient; me?: User }> {
+  if (who === 'anonymous' || !row.ends) return { client: shared() }
+  if (row.ends === 'session') return { client: await signedIn(f[who].email, fixturePassword), me: f[who] }
+  const me = await makeUser(`matrix-${who}`)
+  await Membership.create({ studioId: who === 'outsider' ? f.elsewhere.id : f.studio.id, userId: me.id, role: who === 'outsider' ? 'owner' : who })
+  return { client: await signedIn(me.email, fixturePassword), me }
+}
 
 const same = (status: number): Record<Who, number> => ({ anonymous: status, knitter: status, designer: status, owner: status, outsider: status })
 const signedInOnly = (status: number): Record<Who, number> => ({ ...same(status), anonymous: 401 })
@@ -33,6 +52,10 @@ async function freshInvitation(f: Fixture) {
   return linkIn(await waitForMail(email), '/invitations/').pathname.split('/').pop()!
 }
 
+export function spareSession(user: User) {
+  return UserSession.create({ userId: user.id, sidHash: randomUUID().replaceAll('-', '').padEnd(64, '0'), device: 'Spare test device', address: '', lastSeenAt: new Date() })
+}
+
 async function spareMember(f: Fixture) {
   const u = await makeUser('matrix-spare')
   await Membership.create({ studioId: f.studio.id, userId: u.id, role: 'knitter' })
@@ -43,8 +66,19 @@ export const roleMatrix: Row[] = [
   { route: 'GET /api/health', call: () => ({ method: 'GET', path: '/api/health' }), expect: same(200) },
   { route: 'GET /api/me', call: () => ({ method: 'GET', path: '/api/me' }), expect: signedInOnly(200) },
   { route: 'POST /api/auth/register', call: () => ({ method: 'POST', path: '/api/auth/register', body: { email: uniqueEmail('matrix'), password: 'matrix-password', name: 'M' } }), expect: same(201) },
-  { route: 'POST /api/auth/login', call: f => ({ method: 'POST', path: '/api/auth/login', body: { email: f.knitter.email, password: fixturePassword } }), expect: same(200) },
-  { route: 'POST /api/auth/logout', call: () => ({ method: 'POST', path: '/api/auth/logout' }), expect: same(200) },
+  { route: 'POST /api/auth/login', call: f => ({ method: 'POST', path: '/api/auth/login', body: { email: f.knitter.email, password: fixturePassword } }), expect: same(200), ends: 'session' },
+  { route: 'POST /api/auth/logout', call: () => ({ method: 'POST', path: '/api/auth/logout' }), expect: same(200), ends: 'session' },
+  { route: 'POST /api/auth/confirm-address', call: () => ({ method: 'POST', path: '/api/auth/confirm-address', body: { token: 'x'.repeat(43) } }), expect: same(400) },
+  { route: 'POST /api/me/confirmation-mail', call: () => ({ method: 'POST', path: '/api/me/confirmation-mail' }), expect: signedInOnly(409) },
+  { route: 'POST /api/me/password', call: () => ({ method: 'POST', path: '/api/me/password', body: { current: fixturePassword, password: fixturePassword } }), expect: signedInOnly(200), ends: 'person' },
+  { route: 'GET /api/me/sessions', call: () => ({ method: 'GET', path: '/api/me/sessions' }), expect: signedInOnly(200) },
+  { route: 'DELETE /api/me/sessions', call: () => ({ method: 'DELETE', path: '/api/me/sessions' }), expect: signedInOnly(200), ends: 'person' },
+  {
+    // One of the caller's own devices (a session row of theirs that no client uses).
+    route: 'DELETE /api/me/sessions/[id]',
+    call: async (f, who, me) => ({ method: 'DELETE', path: `/api/me/sessions/${(await spareSession(me ?? (who === 'anonymous' ? f.knitter : f[who]))).id}` }),
+    expect: signedInOnly(204),
+  },
   { route: 'POST /api/auth/password-reset', call: () => ({ method: 'POST', path: '/api/auth/password-reset', body: { email: uniqueEmail('matrix') } }), expect: same(202) },
   { route: 'POST /api/auth/password-reset/confirm', call: () => ({ method: 'POST', path: '/api/auth/password-reset/confirm', body: { token: 'x'.repeat(43), password: 'matrix-password' } }), expect: same(400) },
   { route: 'GET /api/studios/[studioId]/members', call: f => ({ method: 'GET', path: `/api/studios/${f.studio.id}/members` }), expect: studioMember(200) },
@@ -112,6 +146,7 @@ export const roleMatrix: Row[] = [
     route: 'POST /api/invitations/[token]/accept',
     call: async f => ({ method: 'POST', path: `/api/invitations/${await freshInvitation(f)}/accept`, body: { name: 'Matrix', password: 'matrix-password' } }),
     expect: same(200),
+    ends: 'session', // accepting signs in as the new account, ending the caller's session here
   },
   { route: 'GET /api/projects', call: () => ({ method: 'GET', path: '/api/projects' }), expect: signedInOnly(200) },
   {

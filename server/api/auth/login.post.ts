@@ -13,6 +13,6 @@ export default defineEventHandler(async (event) => {
     : (await verifyPassword(await (decoyHash ??= hashPassword('decoy-password-for-timing')), body.password), false)
   if (!user || !ok) throw createError({ statusCode: 401, message: 'E-mail or password is wrong' })
   await clearSignInFailures(body.email)
-  await setUserSession(event, { user: sessionUser(user), loggedInAt: Date.now() })
+  await startSession(event, user)
   return { user: sessionUser(user), studios: await studiosOf(user.id) }
 })

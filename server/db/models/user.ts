@@ -5,6 +5,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
   declare email: string
   declare name: string
   declare passwordHash: string
+  declare emailConfirmedAt: CreationOptional<Date | null>
   declare createdAt: CreationOptional<Date>
   declare updatedAt: CreationOptional<Date>
 
@@ -14,6 +15,7 @@ export class User extends Model<InferAttributes<User>, InferCreationAttributes<U
       email: { type: DataTypes.STRING(254), allowNull: false, unique: true },
       name: { type: DataTypes.STRING(120), allowNull: false },
       passwordHash: { type: DataTypes.STRING(255), allowNull: false },
+      emailConfirmedAt: { type: DataTypes.DATE(3), allowNull: true },
       createdAt: DataTypes.DATE(3),
       updatedAt: DataTypes.DATE(3),
     }, { sequelize, tableName: 'users' })

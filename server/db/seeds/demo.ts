@@ -51,7 +51,7 @@ export async function seedDemo(sequelize: Sequelize): Promise<'created' | 'prese
     const studio = await Studio.create({ name: demoStudioName }, { transaction })
     const people: Record<string, User> = {}
     for (const account of demoAccounts) {
-      const user = await User.create({ email: account.email, name: account.name, passwordHash }, { transaction })
+      const user = await User.create({ email: account.email, name: account.name, passwordHash, emailConfirmedAt: new Date() }, { transaction })
       await Membership.create({ studioId: studio.id, userId: user.id, role: account.role }, { transaction })
       people[account.role] = user
     }

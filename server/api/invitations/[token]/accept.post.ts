@@ -18,11 +18,14 @@ export default defineEventHandler(async (event) => {
     if (person && session.user?.id !== person.id) {
       throw createError({ statusCode: 401, message: `Sign in as ${invitation.email} to accept this invitation` })
     }
+    // Whoever made an unconfirmed account may not own the address the invitation went to.
+    if (person) requireConfirmedAddress(person)
     if (!person) {
       if (!body.name || !body.password) {
         throw createError({ statusCode: 400, message: 'name and password: both are needed to make your account' })
       }
-      person = await createAccount({ email: invitation.email, name: body.name, password: body.password }, transaction)
+      // The token came by mail to this address: that confirms it.
+      person = await createAccount({ email: invitation.email, name: body.name, password: body.password, confirmed: true }, transaction)
     }
     const existing = await Membership.findOne({ where: { studioId: invitation.studioId, userId: person.id }, transaction })
     if (!existing) await Membership.create({ studioId: invitation.studioId, userId: person.id, role: invitation.role }, { transaction })
@@ -30,6 +33,6 @@ export default defineEventHandler(async (event) => {
     await invitation.save({ transaction })
     return person
   })
-  await setUserSession(event, { user: sessionUser(user), loggedInAt: Date.now() })
+  await startSession(event, user)
   return { user: sessionUser(user), studios: await studiosOf(user.id) }
 })

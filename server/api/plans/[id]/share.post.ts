@@ -9,7 +9,7 @@ export default defineEventHandler(async (event) => {
   const { user, plan } = await requirePlan(event, id, 'designer')
   const { email } = await readValid(event, resetRequestBody)
   if (!plan.published) throw createError({ statusCode: 409, message: 'Publish the plan before sharing it' })
-  const invitation = await inviteToStudio({
+  const invitation = await inviteToStudio(event, {
     studioId: plan.studioId, email, role: 'knitter', invitedBy: user,
     why: `They share the plan “${plan.name}” with you.`, then: `/plans/${plan.id}`,
   })

@@ -5,7 +5,7 @@ export default defineEventHandler(async (event) => {
   const { studioId } = paramsValid(event, studioParams)
   const { user } = await requireStudioRole(event, studioId, 'owner')
   const body = await readValid(event, inviteBody)
-  const invitation = await inviteToStudio({ studioId, email: body.email, role: body.role, invitedBy: user })
+  const invitation = await inviteToStudio(event, { studioId, email: body.email, role: body.role, invitedBy: user })
   setResponseStatus(event, 201)
   return { id: invitation.id, email: invitation.email, role: invitation.role, expiresAt: invitation.expiresAt }
 })

@@ -6,6 +6,8 @@ export default defineEventHandler(async (event) => {
   const { studioId, userId } = paramsValid(event, memberParams)
   await requireStudioRole(event, studioId, user.id === userId ? 'knitter' : 'owner')
   await removeMember(studioId, userId)
+  // Removed by an owner: whatever that person's devices hold of the studio stops there.
+  if (user.id !== userId) await endSessions({ userId }, 'removed from a studio')
   setResponseStatus(event, 204)
   return null
 })

@@ -1,0 +1,21 @@
+// A sealed cookie is only as good as its session row: one that was ended (or that carries no
+// session id, from before sessions were kept) is taken off the request here, so every route,
+// nuxt-auth-utils' own /api/_auth/session included, sees a signed-out caller.
+const sessionName = 'nuxt-session'
+
+export default defineEventHandler(async (event) => {
+  const cookie = getRequestHeader(event, 'cookie')
+  const header = getRequestHeader(event, `x-${sessionName}-session`)
+  if (!cookie?.includes(`${sessionName}=`) && !header) return
+  const session = await getUserSession(event)
+  if (!session.user) return
+  if (await sessionIsLive(session.sid, session.user.id)) return
+
+  delete event.context.sessions?.[sessionName]
+  const headers = event.node.req.headers
+  delete headers[`x-${sessionName}-session`]
+  if (cookie) {
+    headers.cookie = cookie.split(';').filter(part => part.trim().split('=')[0] !== sessionName).join(';')
+  }
+  deleteCookie(event, sessionName, { path: '/', secure: true, httpOnly: true, sameSite: 'lax' })
+})
