@@ -1,6 +1,6 @@
 // Sends people who are not signed in to the sign-in page. This only spares them a
 // broken screen: every permission is checked again by the server.
-const publicPages = ['/login', '/register', '/forgot-password', '/reset-password']
+const publicPages = ['/login', '/register', '/forgot-password', '/reset-password', '/confirm-address']
 
 let checked = false
 
