@@ -1,10 +1,11 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import { signedIn, type ApiClient } from '../support/api'
-import { closeTestDb, fixturePassword, makeStudio } from '../support/db'
+import { closeTestDb, fixturePassword, makeProject, makeStudio } from '../support/db'
 import { Project } from '../../server/db/models'
 
-// What one member learns about the studio's other work: a knitter knits from a published plan
-// without learning the names of library motifs still in draft.
+// What one member learns about the studio's other work and people: a knitter knits from a
+// published plan without learning the names of library motifs still in draft, and only
+// owners see members' e-mail addresses.
 
 let s: Awaited<ReturnType<typeof makeStudio>>
 const as = {} as Record<'knitter' | 'designer' | 'owner', ApiClient>
@@ -75,3 +76,29 @@ describe('a published plan that uses a draft motif', () => {
   })
 })
 
+describe('members\' e-mail addresses', () => {
+  const others = (me: { id: number }) => [s.owner, s.designer, s.knitter].filter(u => u.id !== me.id)
+
+  it('owners see every member\'s e-mail', async () => {
+    const { members } = await made(as.owner.get(`/api/studios/${s.studio.id}/members`), 200)
+    expect(members.map((m: any) => [m.name, m.email]).sort()).toEqual([s.owner, s.designer, s.knitter].map(u => [u.name, u.email]).sort())
+  })
+
+  it.each(['designer', 'knitter'] as const)('a %s sees names and roles, no e-mail', async (who) => {
+    const { members } = await made(as[who].get(`/api/studios/${s.studio.id}/members`), 200)
+    expect(members.map((m: any) => [m.name, m.role]).sort()).toEqual([[s.owner.name, 'owner'], [s.designer.name, 'designer'], [s.knitter.name, 'knitter']].sort())
+    for (const m of members) expect(m).not.toHaveProperty('email')
+  })
+
+  it.each(['designer', 'knitter'] as const)('no answer a %s reads about the studio carries another member\'s e-mail', async (who) => {
+    await makeProject({ studioId: s.studio.id, knitterId: s.knitter.id, name: 'Someone knits' })
+    const paths = [
+      `/api/studios/${s.studio.id}/members`, '/api/projects', '/api/pieces', `/api/plans?studioId=${s.studio.id}`, `/api/motifs?studioId=${s.studio.id}`,
+      ...(who === 'designer' ? [`/api/studios/${s.studio.id}/production`] : []),
+    ]
+    for (const path of paths) {
+      const text = JSON.stringify(await made(as[who].get(path), 200))
+      for (const u of others(s[who])) expect(text, path).not.toContain(u.email)
+    }
+  })
+})
