@@ -2,7 +2,7 @@ import type { H3Event } from 'h3'
 import type { Transaction } from 'sequelize'
 import { distinguishable, estimateYarn, KnittingInputError, type YarnEstimate } from '../../shared/knitting'
 import { pieceTimelinePlan } from '../../shared/knit/timeline'
-import { planSlotYarns, workPlanPiece, type PlanMotif, type WorkedPlanPiece } from '../../shared/knit/planPiece'
+import { motifSectionName, planSlotYarns, workPlanPiece, type PlanMotif, type WorkedPlanPiece } from '../../shared/knit/planPiece'
 import type { PlanDetail, PlanPerson, PlanPiece as PlanPieceView, PlanSummary, PlanWarning, PlanYarnNeed } from '../../shared/types/plan'
 import { roleRank, type StudioRole } from '../../shared/types/studio'
 import type { PlanBody, PlanPatch, PlanProjectBody } from '../../shared/validation/plan'
@@ -81,8 +81,11 @@ export async function updatePlan(plan: Plan, body: PlanPatch, userId: number) {
   })
 }
 
-/** Everything the plan's numbers need, loaded once. */
-async function planInputs(plan: Plan) {
+/**
+ * Everything the plan's numbers need, loaded once, as `viewer` may see it: a knitter gets the
+ * chart of a motif still in draft (it is what they knit) but not its library name.
+ */
+async function planInputs(plan: Plan, viewer: StudioRole) {
   const pieces = sortedPieces(plan)
   const motifIds = [...new Set(pieces.flatMap(p => p.sections.flatMap(s => (s.kind === 'motif' ? [s.motifId] : []))))]
   const [machine, swatch, yarns, motifs] = await Promise.all([
@@ -93,7 +96,8 @@ async function planInputs(plan: Plan) {
   ])
   const stock = new Map(yarns.map(y => [y.id, y]))
   const slots = plan.yarns.flatMap(y => (stock.has(y.yarnId) ? [{ ...y, yarn: stock.get(y.yarnId)! }] : []))
-  const motifMap = new Map<number, PlanMotif>(motifs.map(m => [m.id, { name: m.name, chart: motifChartRows(m) }]))
+  const hideDrafts = roleRank[viewer] < roleRank.designer
+  const motifMap = new Map<number, PlanMotif>(motifs.map(m => [m.id, { name: hideDrafts && !m.published ? null : m.name, chart: motifChartRows(m) }]))
   return { pieces, machine, swatch, slots, motifMap }
 }
 
@@ -185,8 +189,8 @@ function planEstimate(inp: Inputs, worked: (WorkedPlanPiece | null)[], warnings:
   return { model: `${model} Shaping rows are counted at the cast-on width; each piece is counted once per copy.`, yarns }
 }
 
-export async function planDetail(plan: Plan): Promise<PlanDetail> {
-  const inp = await planInputs(plan)
+export async function planDetail(plan: Plan, viewer: StudioRole): Promise<PlanDetail> {
+  const inp = await planInputs(plan, viewer)
   const warnings: PlanWarning[] = []
   const worked = workPieces(plan, inp, warnings)
   pieceWarnings(plan, inp, worked, warnings)
@@ -212,17 +216,19 @@ export async function planDetail(plan: Plan): Promise<PlanDetail> {
   }
 }
 
+/** The plan as its designers see it, for the answer to their own create or change. */
 export async function loadPlanDetail(id: number) {
-  return planDetail((await Plan.findByPk(id, { include: withPieces }))!)
+  return planDetail((await Plan.findByPk(id, { include: withPieces }))!, 'designer')
 }
 
 /**
  * A project from a published plan: each chosen piece (× its copies) gets the timeline worked out
  * now, frozen in the project, so later plan edits move nobody's row. Returns the project id.
  */
-export async function startProjectFromPlan(plan: Plan, body: PlanProjectBody, knitterId: number): Promise<number> {
+export async function startProjectFromPlan(plan: Plan, body: PlanProjectBody, knitterId: number, role: StudioRole): Promise<number> {
   if (!plan.published) throw createError({ statusCode: 409, message: 'Publish the plan before starting a project from it' })
-  const inp = await planInputs(plan)
+  // Frozen as the one starting it sees the plan: a knitter's project never holds a draft's name.
+  const inp = await planInputs(plan, role)
   const warnings: PlanWarning[] = []
   const worked = workPieces(plan, inp, warnings)
   const chosen = body.pieces ?? inp.pieces.map((_, i) => i)
@@ -239,9 +245,10 @@ export async function startProjectFromPlan(plan: Plan, body: PlanProjectBody, kn
   })
   const firstMotif = inp.pieces.flatMap(p => p.sections).find(s => s.kind === 'motif')
   const motifId = firstMotif?.kind === 'motif' ? firstMotif.motifId : null
+  const motif = motifId ? inp.motifMap.get(motifId) : undefined
   const project = await useDb().transaction(transaction => insertProject({
     studioId: plan.studioId, knitterId, name: body.name ?? plan.name, machineId: plan.machineId, motifId,
-    motifName: motifId ? inp.motifMap.get(motifId)?.name : undefined, yarns, notes: body.notes ?? plan.notes,
+    motifName: motif ? motifSectionName(firstMotif!, motif) : undefined, yarns, notes: body.notes ?? plan.notes,
     source: 'plan', plan: { id: plan.id, name: plan.name }, pieces,
   }, transaction))
   return project.id
@@ -255,7 +262,7 @@ export async function plannedGramsByYarn(studioId: number): Promise<Map<number, 
   const plans = await Plan.findAll({ where: { studioId, published: true }, include: withPieces })
   const planned = new Map<number, { grams: number; plans: number }>()
   for (const plan of plans) {
-    const detail = await planDetail(plan)
+    const detail = await planDetail(plan, 'owner') // only the grams are used
     for (const y of detail.estimate?.yarns ?? []) {
       const p = planned.get(y.yarnId) ?? { grams: 0, plans: 0 }
       planned.set(y.yarnId, { grams: p.grams + y.grams, plans: p.plans + 1 })

@@ -21,7 +21,16 @@ import type { PlanPieceInput, PlanSectionNumbers } from '../types/plan'
 import type { SectionShaping } from './piecePicture'
 import { compilePieceTimeline } from './timeline'
 
-export interface PlanMotif { name: string; chart: string[] }
+/** `name` is null for a draft whose name the viewer may not see (a knitter: drafts stay in the library). */
+export interface PlanMotif { name: string | null; chart: string[] }
+
+/**
+ * What a motif section is called at the machine: the motif's name, or for a hidden draft the
+ * section's own label (words the designer put in the published plan) or else just "Motif".
+ */
+export function motifSectionName(section: { label?: string }, motif: PlanMotif | undefined): string {
+  return motif?.name ?? (section.label || 'Motif')
+}
 
 export interface PlanPieceContext {
   gauge: Gauge
@@ -99,7 +108,8 @@ export function workPlanPiece(piece: PlanPieceInput, ctx: PlanPieceContext): Wor
       if (rows < 1) throw new KnittingInputError(`${field}.lengthCm: too short for one row`, { field: `${field}.lengthCm` })
       const offset = s.placement === 'centred' ? centredOffset(needles, chart.width) : s.placement.offset % chart.width
       const floats = analyseFloats(chart, { needles, offset }, { limit: ctx.floatLimit, stitchWidthMm: ctx.gauge.stitchWidthMm })
-      push({ kind: 'motif', label: s.label || motif.name, motifName: motif.name, chart: chartToRows(chart), chartRows: rows, main: s.main, contrast: s.contrast }, offset)
+      const name = motifSectionName(s, motif)
+      push({ kind: 'motif', label: s.label || name, motifName: name, chart: chartToRows(chart), chartRows: rows, main: s.main, contrast: s.contrast }, offset)
       current = s.main
       numbers.push({
         kind: s.kind, rows, placement: { offset, chartWidth: chart.width, ...repeatsAcross(needles, chart.width, offset) },

@@ -6,6 +6,7 @@
 
 import { z } from 'zod'
 import type { MotifFile } from '../types/motif'
+import { quotedCsvCell, readQuotedCsvCell, unguardCsvCell } from './csvCell'
 
 export const MOTIF_FILE_FORMAT = 'floatwise-motif'
 export const MOTIF_FILE_VERSION = 1
@@ -35,8 +36,15 @@ export function motifToJson(name: string, rows: string[]): string {
   return `${JSON.stringify(file, null, 2)}\n`
 }
 
+/** The CSV's comment after the name: semicolons, so it stays one cell. */
+const CSV_HEADER_NOTE = 'first line = first row knitted; 0 = main colour; 1 = contrast colour'
+
+/**
+ * The header is three cells, `# floatwise motif`, the name and the note; the name is quoted
+ * and guarded (csvCell.ts) so a spreadsheet shows it as text, never as a formula.
+ */
 export function motifToCsv(name: string, rows: string[]): string {
-  const header = `# floatwise motif ${JSON.stringify(name)}, first line = first row knitted, 0 = main colour, 1 = contrast colour`
+  const header = ['# floatwise motif', quotedCsvCell(name), CSV_HEADER_NOTE].join(',')
   return [header, ...rows.map(r => Array.from(digitRow(r)).join(','))].join('\n') + '\n'
 }
 
@@ -76,6 +84,34 @@ export function motifFromJson(content: string): { name?: string; rows: string[] 
   return { name: file.name, rows: file.rows }
 }
 
+const endOfLine = (text: string, from: number) => {
+  const at = text.indexOf('\n', from)
+  return at < 0 ? text.length : at
+}
+
+/**
+ * Our header comment starting at `start`: `# floatwise motif,"<name>",…` (the quoted name may
+ * span lines), or the form written before the name was quoted for CSV,
+ * `# floatwise motif "<JSON string>", …`, which files already exported still carry.
+ * `end` is the end of the header's last line; a comment of anyone else's names nothing.
+ */
+function readCsvHeader(text: string, start: number, lineNo: number): { name?: string; end: number } {
+  const lineEnd = endOfLine(text, start)
+  const line = text.slice(start, lineEnd)
+  const current = /^\s*#\s*floatwise motif[ \t]*,[ \t]*/.exec(line)
+  if (current) {
+    const at = start + current[0].length
+    if (text[at] !== '"') return { name: unguardCsvCell(line.slice(current[0].length).split(',')[0]!.trim()), end: lineEnd }
+    const cell = readQuotedCsvCell(text, at)
+    if (!cell) throw new MotifFileError(`line ${lineNo}: the name's closing quote is missing`, { line: lineNo })
+    return { name: cell.value, end: endOfLine(text, cell.end) }
+  }
+  const old = /^#\s*floatwise motif ("(?:[^"\\]|\\.)*")/.exec(line.trim())
+  if (!old) return { end: lineEnd }
+  try { return { name: JSON.parse(old[1]!) as string, end: lineEnd } }
+  catch { return { end: lineEnd } }
+}
+
 /**
  * Reads a CSV motif: one line per row, first line = first row knitted, cells 0 or 1
  * separated by commas (spaces around them are allowed). Lines starting with '#' and blank
@@ -84,39 +120,46 @@ export function motifFromJson(content: string): { name?: string; rows: string[] 
  * where a column is a value between commas.
  */
 export function motifFromCsv(content: string): { name?: string; rows: string[] } {
-  const lines = content.replace(/^\uFEFF/, '').split(/\r?\n/)
+  const text = content.replace(/^\uFEFF/, '')
   const rows: string[] = []
   let name: string | undefined
   let width = -1
   let firstLine = 0
-  lines.forEach((line, index) => {
-    const lineNo = index + 1
-    if (line.trim() === '') return
+  let lineNo = 1
+  for (let start = 0; start < text.length; lineNo++) {
+    let end = endOfLine(text, start)
+    const line = text.slice(start, end).replace(/\r$/, '')
     if (line.trimStart().startsWith('#')) {
-      const named = /^#\s*floatwise motif ("(?:[^"\\]|\\.)*")/.exec(line.trim())
-      if (named && name === undefined) {
-        try { name = JSON.parse(named[1]!) as string }
-        catch { /* a comment we do not understand names nothing */ }
+      const header = readCsvHeader(text, start, lineNo)
+      if (name === undefined) name = header.name
+      // A name with line breaks: go on after the line its closing quote is on.
+      lineNo += text.slice(start, header.end).split('\n').length - 1
+      end = header.end
+    }
+    else if (line.trim() !== '') {
+      const row = readCsvRow(line, lineNo)
+      if (width < 0) {
+        width = row.length
+        firstLine = lineNo
       }
-      return
-    }
-    const values = line.split(',').map(v => v.trim())
-    let row = ''
-    values.forEach((v, c) => {
-      if (v !== '0' && v !== '1') {
-        throw new MotifFileError(`line ${lineNo}, column ${c + 1}: expected 0 or 1, got ${v === '' ? 'nothing' : v.length > 12 ? `${v.slice(0, 12)}…` : v}`, { line: lineNo, column: c + 1 })
+      else if (row.length !== width) {
+        throw new MotifFileError(`line ${lineNo}: ${row.length} values, expected ${width} like line ${firstLine}`, { line: lineNo, column: Math.min(row.length, width) + 1 })
       }
-      row += v
-    })
-    if (width < 0) {
-      width = values.length
-      firstLine = lineNo
+      rows.push(row)
     }
-    else if (values.length !== width) {
-      throw new MotifFileError(`line ${lineNo}: ${values.length} values, expected ${width} like line ${firstLine}`, { line: lineNo, column: Math.min(values.length, width) + 1 })
-    }
-    rows.push(row)
-  })
+    start = end + 1
+  }
   if (rows.length === 0) throw new MotifFileError('no rows: expected lines of 0 and 1 separated by commas')
   return { name, rows }
+}
+
+/** One line of 0/1 values → a row of '0'/'1'. */
+function readCsvRow(line: string, lineNo: number): string {
+  const values = line.split(',').map(v => v.trim())
+  values.forEach((v, c) => {
+    if (v !== '0' && v !== '1') {
+      throw new MotifFileError(`line ${lineNo}, column ${c + 1}: expected 0 or 1, got ${v === '' ? 'nothing' : v.length > 12 ? `${v.slice(0, 12)}…` : v}`, { line: lineNo, column: c + 1 })
+    }
+  })
+  return values.join('')
 }

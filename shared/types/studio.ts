@@ -8,7 +8,8 @@ export type Technique = 'together' | 'colour-by-colour'
 
 export interface StudioSummary { id: number; name: string; role: StudioRole; personal: boolean }
 
-export interface StudioMember { userId: number; name: string; email: string; role: StudioRole; since: string }
+/** `email` only in the answer to owners: other members see each other by name. */
+export interface StudioMember { userId: number; name: string; email?: string; role: StudioRole; since: string }
 export interface PendingInvitation { id: number; email: string; role: StudioRole; expiresAt: string }
 export interface StudioMembers { members: StudioMember[]; invitations: PendingInvitation[] }
 export interface InvitationView { studioName: string; role: StudioRole; email: string; hasAccount: boolean }

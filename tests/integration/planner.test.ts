@@ -270,8 +270,9 @@ describe('plans', () => {
     expect(project.yarns.map((y: any) => [y.slot, y.yarnId, y.symbol])).toEqual([['A', stock.oat.id, '●'], ['B', stock.navy.id, '▲']])
     const before = (await as.knitter.get(`/api/pieces/${project.pieces[0].id}`)).body.timeline
     expect(before.needles).toBe(50)
-    // The planner's preview draws exactly the timeline the project froze.
-    expect((await as.designer.get(`/api/plans/${plan.id}`)).body.pieces[0].numbers.preview.timeline).toEqual(before)
+    // The planner's preview draws exactly the timeline the project froze, as the knitter sees the
+    // plan (its motif is a draft: the knitter sees "Motif" where designers see its name).
+    expect((await as.knitter.get(`/api/plans/${plan.id}`)).body.pieces[0].numbers.preview.timeline).toEqual(before)
     // Notes join the next section with rows; shaping rows are plain rows in the yarn before.
     expect(before.sections.map((x: any) => [x.kind, x.rows ?? x.chartRows, x.yarn ?? x.main, x.note])).toEqual([
       ['plain', 196, 'A', 'Cast on with waste yarn — Stitch size 6'],

@@ -4,6 +4,6 @@ import { idParams } from '../../../shared/validation/knit'
 export default defineEventHandler(async (event) => {
   await requireUser(event)
   const { id } = paramsValid(event, idParams)
-  const { plan } = await requirePlan(event, id)
-  return planDetail(plan)
+  const { plan, role } = await requirePlan(event, id)
+  return planDetail(plan, role)
 })

@@ -5,9 +5,9 @@ import { planProjectBody } from '../../../../shared/validation/plan'
 export default defineEventHandler(async (event) => {
   const user = await requireUser(event)
   const { id } = paramsValid(event, idParams)
-  const { plan } = await requirePlan(event, id)
+  const { plan, role } = await requirePlan(event, id)
   const body = await readValid(event, planProjectBody)
-  const projectId = await startProjectFromPlan(plan, body, user.id)
+  const projectId = await startProjectFromPlan(plan, body, user.id, role)
   setResponseStatus(event, 201)
   return loadProjectDetail(projectId)
 })
