@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { MAX_PLAN_ROWS } from '../knitting/plan'
+import { copySuffix, longestPieceName } from '../knit/pieceCopies'
 import { nameSchema } from './auth'
 
 // Machines, yarn stock, swatches and plans: bodies of the planner routes. Create bodies
@@ -117,6 +118,12 @@ export const planPieceSchema = z.object({
   unit: lengthUnit.default('cm'),
   ease: z.number('must be a number').min(-100, 'must be at least -100').max(100, 'must be at most 100').default(0),
   sections: z.array(planSectionSchema, 'must be a list of sections').min(1, 'at least one section').max(100, 'at most 100 sections'),
+}).superRefine((p, ctx) => {
+  // Each copy becomes a project piece named "<name> 2 of 2", which must fit the same column.
+  const longest = longestPieceName(p.copies)
+  if (p.name.length > longest) {
+    ctx.addIssue({ code: 'custom', path: ['name'], message: `must be at most ${longest} characters with ${p.copies} copies (each copy is named "…${copySuffix(p.copies, p.copies)}")` })
+  }
 })
 
 const planFields = {
