@@ -176,3 +176,18 @@ describe('the server stops mid-sync', () => {
     expect(await Piece.findByPk(pieceId)).toMatchObject({ completedRows: 1990, version: 2010 })
   }, 120_000)
 })
+
+describe('steps the server does not take as they stand', () => {
+  it('a step stamped by a clock before 2020 is refused with a 400 naming at, and stays queued', async () => {
+    const pieceId = await freshPiece()
+    const a = await tablet()
+    await openPiece(a, pieceId)
+    const { piece } = await readPieceState(a.db, pieceId)
+    await recordStep(a.db, pieceId, { kind: 'advance', to: 1, totalRows: piece!.totalRows }, { now: () => new Date('2019-06-01T12:00:00Z') })
+    const result = await a.syncer.flush()
+    expect(result).toMatchObject({ ok: false, error: { kind: 'bad-request', status: 400 } })
+    expect(result.error?.message).toContain('events.0.at: ')
+    expect((await readPieceState(a.db, pieceId)).pending).toBe(1) // kept for a retry, not dropped
+    expect(await log(pieceId)).toHaveLength(0)
+  })
+})
