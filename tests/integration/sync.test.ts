@@ -229,6 +229,21 @@ describe('POST /api/sync', () => {
     expect(await log(piece.id)).toHaveLength(status === 200 ? 1 : 0)
   })
 
+  it('a step whose from is not the piece\'s place at the version it names is kept as a conflict and moves nothing', async () => {
+    const { piece } = await freshPiece()
+    const a = device('tablet-a-from')
+    await a.send([step({ pieceId: piece.id, from: 0, to: 2, version: 0 })])
+    // Version 1 is the piece's version, but the piece is at row 2 there, not at row 9.
+    const res = await a.send([step({ pieceId: piece.id, from: 9, to: 10, version: 1 })])
+    expect(res.status).toBe(200)
+    expect(res.body.accepted).toHaveLength(1) // kept in the log: the device drops nothing it cannot send again
+    expect(res.body.pieces[0]).toMatchObject({ completedRows: 2, version: 1, conflict: { deviceId: 'tablet-a-from', theirs: 2, ours: 10 } })
+    // The knitter's jump settles it, as for any conflict; a jump's from is the device's own place.
+    const chosen = await a.send([step({ pieceId: piece.id, kind: 'jump', from: 10, to: 10, version: 1 })])
+    expect(chosen.body.pieces[0]).toMatchObject({ completedRows: 10, version: 2, conflict: null })
+    expect((await log(piece.id)).map(e => [e.outcome, e.fromRows, e.toRows])).toEqual([['applied', 0, 2], ['conflict', 9, 10], ['applied', 10, 10]])
+  })
+
   it('a step past the last row of my piece is a 400 naming it, and nothing of the batch is stored', async () => {
     const { piece } = await freshPiece()
     const good = step({ pieceId: piece.id, from: 0, to: 1, version: 0 })
