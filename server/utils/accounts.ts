@@ -1,6 +1,7 @@
 import type { Transaction } from 'sequelize'
 import { Membership, Studio, User } from '../db/models'
 import type { StudioSummary } from '../../shared/types/studio'
+import { nameWithSuffix } from '../../shared/text/nameWithSuffix'
 
 /** A new person with their personal studio, which they own. */
 export async function createAccount(input: { email: string; name: string; password: string; confirmed?: boolean }, transaction: Transaction) {
@@ -8,7 +9,8 @@ export async function createAccount(input: { email: string; name: string; passwo
     email: input.email, name: input.name, passwordHash: await hashPassword(input.password),
     emailConfirmedAt: input.confirmed ? new Date() : null,
   }, { transaction })
-  const studio = await Studio.create({ name: `${input.name}’s studio`, personal: true }, { transaction })
+  // A long name is cut inside the studio's name, never refused: the studio column is as long as the name's.
+  const studio = await Studio.create({ name: nameWithSuffix(input.name, '’s studio'), personal: true }, { transaction })
   await Membership.create({ studioId: studio.id, userId: user.id, role: 'owner' }, { transaction })
   return user
 }

@@ -3,6 +3,8 @@ import type { Transaction } from 'sequelize'
 import { distinguishable, estimateYarn, KnittingInputError, type YarnEstimate } from '../../shared/knitting'
 import { pieceTimelinePlan } from '../../shared/knit/timeline'
 import { motifSectionName, planSlotYarns, workPlanPiece, type PlanMotif, type WorkedPlanPiece } from '../../shared/knit/planPiece'
+import { copySuffix } from '../../shared/knit/pieceCopies'
+import { nameWithSuffix } from '../../shared/text/nameWithSuffix'
 import type { PlanDetail, PlanPerson, PlanPiece as PlanPieceView, PlanSummary, PlanWarning, PlanYarnNeed } from '../../shared/types/plan'
 import { roleRank, type StudioRole } from '../../shared/types/studio'
 import type { PlanBody, PlanPatch, PlanProjectBody } from '../../shared/validation/plan'
@@ -240,7 +242,8 @@ export async function startProjectFromPlan(plan: Plan, body: PlanProjectBody, kn
     .map(y => ({ ...y, yarnId: inp.slots.find(s => s.slot === y.slot)!.yarnId }))
   const pieces = chosen.flatMap((i) => {
     const p = inp.pieces[i]!
-    const name = (k: number) => (p.copies > 1 ? `${p.name} ${k + 1} of ${p.copies}` : p.name)
+    // Cut to fit for pieces saved before their names were checked against the copies.
+    const name = (k: number) => nameWithSuffix(p.name, copySuffix(k + 1, p.copies))
     return Array.from({ length: p.copies }, (_, k) => ({ name: name(k), timeline: worked[i]!.timeline }))
   })
   const firstMotif = inp.pieces.flatMap(p => p.sections).find(s => s.kind === 'motif')

@@ -8,8 +8,10 @@ import {
 
 // POST /api/sync: a device's row events, applied in order, each exactly once.
 //
-// An event moves a piece only when it builds on the piece's current version; otherwise it is
-// kept in the log as a 'conflict' and the piece stays where it is. Once a device is in
+// An event moves a piece only when it builds on the piece's current version and, unless it is
+// a jump, starts from the piece's place at that version; otherwise it is kept in the log as a
+// 'conflict' and the piece stays where it is. A refused step is logged, not sent back as
+// rejected: the device drops rejected events, and this one is a tap the knitter made. Once a device is in
 // conflict on a piece, only a 'jump' (the knitter's choice of place) on the current version
 // moves it again: the device's other offline steps were built on a place that lost, and
 // their version numbers can coincide with the server's without meaning the same rows.
@@ -81,6 +83,7 @@ async function storeRowEvents(userId: number, deviceId: string, target: Knittabl
       const { stored, latest } = await storedAndLatest(db, events.map(e => e.id), target.id, deviceId, transaction)
       let last = latest
       let moved: { to: number; at: Date } | null = null
+      let place = piece.completedRows
       const rows: NewRowEvent[] = []
       const seen = new Set<string>()
       const now = new Date()
@@ -89,7 +92,10 @@ async function storeRowEvents(userId: number, deviceId: string, target: Knittabl
         if (existing) return sameEvent(existing, userId, e) ? 'replay' : 'foreign'
         if (seen.has(e.id)) return 'replay' // the same new event twice in one batch
         seen.add(e.id)
-        const applies = e.version === piece.version && (last?.outcome !== 'conflict' || e.kind === 'jump')
+        // A jump's `from` is the device's own place (the knitter's choice may leave it); a step's
+        // must be the place its version stands for, or it was taken from a row the piece is not at.
+        const buildsOnPlace = e.kind === 'jump' || e.from === place
+        const applies = e.version === piece.version && buildsOnPlace && (last?.outcome !== 'conflict' || e.kind === 'jump')
         const outcome = applies ? 'applied' : 'conflict'
         rows.push({
           id: e.id, pieceId: target.id, userId, deviceId, kind: e.kind, fromRows: e.from, toRows: e.to, version: e.version,
@@ -98,6 +104,7 @@ async function storeRowEvents(userId: number, deviceId: string, target: Knittabl
         last = { outcome, toRows: e.to }
         if (!applies) return 'conflict'
         piece.version += 1
+        place = e.to
         moved = { to: e.to, at: now }
         return 'applied'
       })

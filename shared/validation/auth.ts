@@ -1,11 +1,12 @@
 import { z } from 'zod'
 import { studioRoles } from '../types/studio'
+import { NAME_MAX } from '../text/nameWithSuffix'
 
 export const emailSchema = z.string().trim().toLowerCase().max(254).pipe(z.email('must be an e-mail address'))
 export const passwordSchema = z.string()
   .min(10, 'must be at least 10 characters')
   .max(200, 'must be at most 200 characters')
-export const nameSchema = z.string().trim().min(1, 'is required').max(120, 'must be at most 120 characters')
+export const nameSchema = z.string().trim().min(1, 'is required').max(NAME_MAX, `must be at most ${NAME_MAX} characters`)
 const tokenSchema = z.string().regex(/^[A-Za-z0-9_-]{32,128}$/, 'is not a valid token')
 
 export const registerBody = z.object({ email: emailSchema, password: passwordSchema, name: nameSchema })

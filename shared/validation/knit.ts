@@ -35,6 +35,16 @@ export const studioRef = z.object({ studioId: id })
 export const deviceIdSchema = z.string('must be text').regex(/^[A-Za-z0-9_-]{8,64}$/, 'must be 8–64 letters, digits, "_" or "-"')
 const rowCount = count(0, MAX_PLAN_ROWS)
 
+// When a tap can have happened: not before Floatwise existed, and not more than a day ahead of
+// the server, since device clocks drift (and time zones are offsets, not errors). The bounds also
+// keep every stored time inside DATETIME's years 1000–9999: "9999-12-31T23:59:59-10:00" is 10000 in UTC.
+const EARLIEST_EVENT_MS = Date.parse('2020-01-01T00:00:00Z')
+const CLOCK_AHEAD_MS = 24 * 60 * 60_000
+function inEventRange(at: string) {
+  const ms = Date.parse(at)
+  return Number.isNaN(ms) || (ms >= EARLIEST_EVENT_MS && ms <= Date.now() + CLOCK_AHEAD_MS) // NaN: the format check speaks
+}
+
 export const rowEventSchema = z.object({
   // Stored lower-case: the id column compares without case, so 'A…' and 'a…' are one event.
   id: z.uuid('must be a UUID').transform(s => s.toLowerCase()),
@@ -43,7 +53,8 @@ export const rowEventSchema = z.object({
   from: rowCount,
   to: rowCount,
   version: count(0, 2 ** 31 - 1),
-  at: z.iso.datetime({ offset: true, error: 'must be an ISO date-time' }),
+  at: z.iso.datetime({ offset: true, error: 'must be an ISO date-time' })
+    .refine(inEventRange, 'must be between 2020-01-01 and a day after the server\'s time (check the device\'s clock)'),
 })
 export type RowEventInput = z.infer<typeof rowEventSchema>
 

@@ -1,5 +1,6 @@
 import { z } from 'zod'
 import { MAX_PLAN_ROWS } from '../knitting/plan'
+import { copySuffix, longestPieceName } from '../knit/pieceCopies'
 import { nameSchema } from './auth'
 
 // Machines, yarn stock, swatches and plans: bodies of the planner routes. Create bodies
@@ -9,6 +10,15 @@ const id = z.number('must be a number').int('must be a whole number').positive('
 const count = (min: number, max: number) => z.number('must be a number').int('must be a whole number')
   .min(min, `must be at least ${min}`).max(max, `must be at most ${max}`)
 const positive = (max: number) => z.number('must be a number').positive('must be more than 0').max(max, `must be at most ${max}`)
+/**
+ * A measure kept in a DECIMAL column with `decimals` places: anything smaller than one step
+ * would be stored as 0 and later divided by (a swatch 0 cm high has no gauge).
+ */
+const stored = (max: number, decimals: 1 | 2) => {
+  const step = decimals === 1 ? 0.1 : 0.01
+  return z.number('must be a number').min(step, `must be at least ${step} (it is kept to ${decimals} decimal place${decimals === 1 ? '' : 's'})`)
+    .max(max, `must be at most ${max}`)
+}
 const notes = z.string('must be text').max(5000, 'must be at most 5000 characters')
 const technique = z.enum(['together', 'colour-by-colour'], 'must be "together" or "colour-by-colour"')
 export const lengthUnit = z.enum(['cm', 'in'], 'must be "cm" or "in"')
@@ -16,7 +26,7 @@ const slot = z.string('must be a slot letter').regex(/^[A-F]$/, 'must be a slot 
 
 const machineFields = {
   name: nameSchema,
-  needlePitchMm: positive(50),
+  needlePitchMm: stored(50, 2),
   needles: count(1, 1000),
   patterningWidth: count(1, 200),
   technique,
@@ -32,7 +42,7 @@ const yarnFields = {
   name: nameSchema,
   hex: z.string('must be text').regex(/^#[0-9a-fA-F]{6}$/, 'must be a colour like #1a2b3c').transform(s => s.toLowerCase()),
   weightCategory: count(0, 7),
-  metresPer100g: positive(100000),
+  metresPer100g: stored(100000, 1),
   gramsOnHand: z.number('must be a number').min(0, 'must be at least 0').max(1000000, 'must be at most 1000000'),
   notes,
 }
@@ -48,10 +58,10 @@ const swatchFields = {
   contrastYarnId: id.nullable(),
   stitches: count(1, 1000),
   rows: count(1, 5000),
-  width: positive(1000),
-  height: positive(1000),
+  width: stored(1000, 2),
+  height: stored(1000, 2),
   unit: lengthUnit,
-  grams: positive(100000).nullable(),
+  grams: stored(100000, 2).nullable(),
   washed: z.boolean('must be true or false'),
   notes,
 }
@@ -112,11 +122,17 @@ export const planSectionSchema = z.discriminatedUnion('kind', [
 export const planPieceSchema = z.object({
   name: nameSchema,
   copies: count(1, 10).default(1),
-  targetWidth: positive(1000),
-  targetLength: positive(1000),
+  targetWidth: stored(1000, 2),
+  targetLength: stored(1000, 2),
   unit: lengthUnit.default('cm'),
   ease: z.number('must be a number').min(-100, 'must be at least -100').max(100, 'must be at most 100').default(0),
   sections: z.array(planSectionSchema, 'must be a list of sections').min(1, 'at least one section').max(100, 'at most 100 sections'),
+}).superRefine((p, ctx) => {
+  // Each copy becomes a project piece named "<name> 2 of 2", which must fit the same column.
+  const longest = longestPieceName(p.copies)
+  if (p.name.length > longest) {
+    ctx.addIssue({ code: 'custom', path: ['name'], message: `must be at most ${longest} characters with ${p.copies} copies (each copy is named "…${copySuffix(p.copies, p.copies)}")` })
+  }
 })
 
 const planFields = {

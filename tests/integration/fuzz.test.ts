@@ -2,7 +2,7 @@ import fc from 'fast-check'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { apiClient, signedIn, type ApiResponse } from '../support/api'
 import { closeTestDb, fixturePassword, makeProject, makeStock, makeStudio } from '../support/db'
-import { brokenBody, hostileQueryValue, hostileSegment, hostileValue, pathsOf, withValueAt } from '../support/fuzzValues'
+import { brokenBody, hostileQueryValue, hostileSegment, hostileValue, limitChanges, pathsOf, withChanges, withValueAt } from '../support/fuzzValues'
 import { chartPicture } from '../support/pictures'
 import { apiRoutes, clientFor, roleMatrix, spareSession, type Call, type Fixture } from '../support/routeCalls'
 import { storedRows } from '../support/storedRows'
@@ -136,6 +136,17 @@ describe('generated bodies', () => {
       await probe({ ...valid, body: body === undefined ? {} : body })
     }))
   })
+
+  // Values that pass validation but sit at a limit: what the server derives from them must fit too.
+  // Each case gets a fresh valid call (a new address, an unused invitation, a new piece), so the
+  // server gets as far as deriving names and dates from what it was sent.
+  it.each(jsonRoutes.map(r => [r.route, r]))('%s: a body with values at their limits is never a 5xx', async (_, row) => {
+    const shape = await row.call(f, 'owner')
+    await fuzz(fc.asyncProperty(limitChanges(shape.body), async (changes) => {
+      const valid = await row.call(f, 'owner')
+      await probe({ ...valid, body: withChanges(valid.body, changes) })
+    }) as unknown as fc.IAsyncProperty<[unknown]>)
+  }, Math.max(30_000, runs * 2_000)) // a fresh call can hash a password (accepting an invitation)
 
   it.each(formRoutes.map(r => [r.route, r]))('%s: a broken form is never a 5xx', async (_, row) => {
     const valid = await row.call(f, 'owner')

@@ -205,6 +205,45 @@ describe('POST /api/sync', () => {
     expect(res.body.message).toContain(`${field}: `)
   })
 
+  it('an event at 9999-12-31T23:59:59-10:00 (year 10000 in UTC) is a 400 naming events.N.at, and nothing of the batch is stored', async () => {
+    const { piece } = await freshPiece()
+    const good = step({ pieceId: piece.id, from: 0, to: 1, version: 0 })
+    const res = await device('tablet-a-year').send([good, { ...step({ pieceId: piece.id, from: 1, to: 2, version: 1 }), at: '9999-12-31T23:59:59-10:00' }])
+    expect(res.status, JSON.stringify(res.body)).toBe(400)
+    expect(res.body.message).toContain('events.1.at: must be between 2020-01-01 and a day after the server\'s time')
+    expect(await log(piece.id)).toHaveLength(0)
+  })
+
+  const day = 24 * 60 * 60_000
+  it.each([
+    ['before 2020', '2019-12-31T23:59:59.999Z', 400],
+    ['the first moment of 2020', '2020-01-01T00:00:00.000Z', 200],
+    ['23 hours ahead of the server', () => new Date(Date.now() + day - 3_600_000).toISOString(), 200],
+    ['two days ahead of the server', () => new Date(Date.now() + 2 * day).toISOString(), 400],
+    ['year 0000', '0000-01-01T00:00:00Z', 400],
+  ] as const)('an event at %s (%s) answers %i', async (_, at, status) => {
+    const { piece } = await freshPiece()
+    const res = await device('tablet-a-clock').send([{ ...step({ pieceId: piece.id, from: 0, to: 1, version: 0 }), at: typeof at === 'function' ? at() : at }])
+    expect(res.status, JSON.stringify(res.body)).toBe(status)
+    if (status === 400) expect(res.body.message).toContain('events.0.at: ')
+    expect(await log(piece.id)).toHaveLength(status === 200 ? 1 : 0)
+  })
+
+  it('a step whose from is not the piece\'s place at the version it names is kept as a conflict and moves nothing', async () => {
+    const { piece } = await freshPiece()
+    const a = device('tablet-a-from')
+    await a.send([step({ pieceId: piece.id, from: 0, to: 2, version: 0 })])
+    // Version 1 is the piece's version, but the piece is at row 2 there, not at row 9.
+    const res = await a.send([step({ pieceId: piece.id, from: 9, to: 10, version: 1 })])
+    expect(res.status).toBe(200)
+    expect(res.body.accepted).toHaveLength(1) // kept in the log: the device drops nothing it cannot send again
+    expect(res.body.pieces[0]).toMatchObject({ completedRows: 2, version: 1, conflict: { deviceId: 'tablet-a-from', theirs: 2, ours: 10 } })
+    // The knitter's jump settles it, as for any conflict; a jump's from is the device's own place.
+    const chosen = await a.send([step({ pieceId: piece.id, kind: 'jump', from: 10, to: 10, version: 1 })])
+    expect(chosen.body.pieces[0]).toMatchObject({ completedRows: 10, version: 2, conflict: null })
+    expect((await log(piece.id)).map(e => [e.outcome, e.fromRows, e.toRows])).toEqual([['applied', 0, 2], ['conflict', 9, 10], ['applied', 10, 10]])
+  })
+
   it('a step past the last row of my piece is a 400 naming it, and nothing of the batch is stored', async () => {
     const { piece } = await freshPiece()
     const good = step({ pieceId: piece.id, from: 0, to: 1, version: 0 })

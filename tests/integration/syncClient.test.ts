@@ -176,3 +176,35 @@ describe('the server stops mid-sync', () => {
     expect(await Piece.findByPk(pieceId)).toMatchObject({ completedRows: 1990, version: 2010 })
   }, 120_000)
 })
+
+describe('steps the server does not take as they stand', () => {
+  it('a step stamped by a clock before 2020 is refused with a 400 naming at, and stays queued', async () => {
+    const pieceId = await freshPiece()
+    const a = await tablet()
+    await openPiece(a, pieceId)
+    const { piece } = await readPieceState(a.db, pieceId)
+    await recordStep(a.db, pieceId, { kind: 'advance', to: 1, totalRows: piece!.totalRows }, { now: () => new Date('2019-06-01T12:00:00Z') })
+    const result = await a.syncer.flush()
+    expect(result).toMatchObject({ ok: false, error: { kind: 'bad-request', status: 400 } })
+    expect(result.error?.message).toContain('events.0.at: ')
+    expect((await readPieceState(a.db, pieceId)).pending).toBe(1) // kept for a retry, not dropped
+    expect(await log(pieceId)).toHaveLength(0)
+  })
+
+  it('a step whose from is not the server\'s place comes back as a conflict: the device keeps its row and the knitter chooses', async () => {
+    const pieceId = await freshPiece()
+    const a = await tablet()
+    await openPiece(a, pieceId)
+    // A device whose place went wrong (row 5) while the server, at the same version, is at row 0.
+    await a.db.progress.update(pieceId, { completedRows: 5 })
+    await step(a, pieceId, 'advance', 6)
+    expect(await a.syncer.flush()).toMatchObject({ ok: true, accepted: 1 })
+    expect((await readPieceState(a.db, pieceId))).toMatchObject({ pending: 0, progress: { completedRows: 6, serverRows: 0, conflict: { theirs: 0, ours: 6 } } })
+    expect(await Piece.findByPk(pieceId)).toMatchObject({ completedRows: 0, version: 0 })
+
+    await resolveConflict(a.db, pieceId, 'ours')
+    expect((await a.syncer.flush()).ok).toBe(true)
+    expect(await Piece.findByPk(pieceId)).toMatchObject({ completedRows: 6, version: 1 })
+    expect((await log(pieceId)).map(r => [r.kind, r.fromRows, r.toRows, r.outcome])).toEqual([['advance', 5, 6, 'conflict'], ['jump', 6, 6, 'applied']])
+  })
+})

@@ -38,8 +38,9 @@ interface StoredEvent extends RowEvent { deviceId: string; outcome: 'applied' | 
 /**
  * A stand-in for `fetch` that applies the server's rule for `POST /api/sync` (as
  * server/utils/sync.ts does): each event id is stored once (a replay is accepted and changes
- * nothing); an event applies only when its version equals the piece's version and, once this
- * device is in conflict on the piece, only a jump does; anything else is logged as a conflict.
+ * nothing); an event applies only when its version equals the piece's version, it starts from
+ * the piece's place (a jump may start anywhere) and, once this device is in conflict on the
+ * piece, only a jump does; anything else is logged as a conflict.
  * A device's conflict stands while its latest event on the piece is one.
  */
 export function fakeSyncServer(initial: Record<number, { completedRows: number; version?: number }> = { 1: { completedRows: 0 } }) {
@@ -64,7 +65,8 @@ export function fakeSyncServer(initial: Record<number, { completedRows: number; 
       touched.add(e.pieceId)
       if (!stored.has(e.id)) {
         const key = `${body.deviceId}/${e.pieceId}`
-        const applies = e.version === piece.version && (latest.get(key)?.outcome !== 'conflict' || e.kind === 'jump')
+        const applies = e.version === piece.version && (e.kind === 'jump' || e.from === piece.completedRows)
+          && (latest.get(key)?.outcome !== 'conflict' || e.kind === 'jump')
         if (applies) Object.assign(piece, { completedRows: e.to, version: piece.version + 1, lastDevice: body.deviceId })
         const event: StoredEvent = { ...e, deviceId: body.deviceId, outcome: applies ? 'applied' : 'conflict' }
         stored.set(e.id, event)
