@@ -12,7 +12,7 @@ export default defineEventHandler(async (event) => {
     ? await verifyPassword(user.passwordHash, body.password)
     : (await verifyPassword(await (decoyHash ??= hashPassword('decoy-password-for-timing')), body.password), false)
   if (!user || !ok) throw createError({ statusCode: 401, message: 'E-mail or password is wrong' })
-  await clearSignInFailures(body.email)
+  await clearSignInFailures(event, body.email)
   await setUserSession(event, { user: sessionUser(user), loggedInAt: Date.now() })
   return { user: sessionUser(user), studios: await studiosOf(user.id) }
 })
