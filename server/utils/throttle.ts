@@ -2,6 +2,7 @@ import type { H3Event } from 'h3'
 import { Op } from 'sequelize'
 import { SignInFailure } from '../db/models'
 import { failuresToCap, growingDelayWaitMs, hardLimitWaitMs, signInRules, tryAgainIn } from './signInRules'
+import { warnedMarker } from './signInWarning'
 
 export function clientAddress(event: H3Event) {
   // X-Forwarded-For is believed only behind a proxy we run (NUXT_TRUST_PROXY=true): anyone can send it.
@@ -34,7 +35,7 @@ export async function claimSignInAttempt(event: H3Event, email: string) {
   const [fromPair, fromAddress, forAccount] = await Promise.all([
     recentFailures({ email, address }, pair.windowMs, failuresToCap(pair) + 1, now),
     recentFailures({ address }, perAddress.windowMs, perAddress.limit + 1, now),
-    recentFailures({ email }, account.windowMs, failuresToCap(account) + 1, now),
+    recentFailures({ email, address: { [Op.ne]: warnedMarker } }, account.windowMs, failuresToCap(account) + 1, now),
   ])
   const waits = [
     { ms: growingDelayWaitMs(others(fromPair), pair, now), why: 'from this address' },

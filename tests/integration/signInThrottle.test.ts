@@ -4,6 +4,7 @@ import { afterAll, describe, expect, it } from 'vitest'
 import { Op } from 'sequelize'
 import { apiClient, uniqueEmail } from '../support/api'
 import { closeTestDb, fixturePassword, makeUser, testDb } from '../support/db'
+import { linkIn, mailTo, waitForMail } from '../support/mail'
 import { SignInFailure } from '../../server/db/models'
 
 // Throttling by account and by network address (server/utils/throttle.ts). Failures older
@@ -146,5 +147,45 @@ describe('sign-in throttling by account and address', () => {
     expect((await signIn(mine, user.email, fixturePassword)).status).toBe(200)
     expect(await failuresOf(user.email, mine)).toBe(0)
     expect(await failuresOf(user.email, theirs)).toBe(2)
+  })
+})
+
+describe('the warning mail after repeated failures', () => {
+  it('mails the owner once after ten failures within an hour, saying from how many addresses', async () => {
+    const user = await makeUser('warned')
+    const earlier = [freshAddress(), freshAddress(), freshAddress()]
+    await pastFailures(user.email, i => earlier[i % 3]!, Array.from({ length: 8 }, (_, i) => 20 * minute + i * minute))
+    const attacker = freshAddress()
+    await wrongPasswords(attacker, user.email, 2)
+    const mail = await waitForMail(user.email)
+    expect(mail.subject).toBe('Failed sign-ins to your Floatwise account')
+    expect(mail.text).toContain('10 times in the last hour, from 4 network addresses')
+    expect(mail.text).toContain('Your password still holds')
+    expect(linkIn(mail, '/forgot-password').pathname).toBe('/forgot-password')
+
+    await wrongPasswords(freshAddress(), user.email, 3)
+    await sleep(500)
+    expect(mailTo(user.email)).toHaveLength(1)
+  })
+
+  it('warns again once the last warning is an hour old', async () => {
+    const user = await makeUser('rewarned')
+    await pastFailures(user.email, freshAddress, Array.from({ length: 9 }, (_, i) => 20 * minute + i * minute))
+    await wrongPasswords(freshAddress(), user.email, 1)
+    await waitForMail(user.email)
+    // An hour later (everything on record moved back), ten new failures warn again.
+    await testDb().query('UPDATE sign_in_failures SET at = at - INTERVAL 61 MINUTE WHERE email = ?', { replacements: [user.email] })
+    await pastFailures(user.email, freshAddress, Array.from({ length: 9 }, (_, i) => 20 * minute + i * minute))
+    await wrongPasswords(freshAddress(), user.email, 1)
+    const again = await waitForMail(user.email, 2)
+    expect(again.text).toContain('10 times in the last hour, from 10 network addresses')
+  })
+
+  it('mails nobody for an address without an account', async () => {
+    const email = uniqueEmail('nobody')
+    await pastFailures(email, freshAddress, Array.from({ length: 9 }, (_, i) => 20 * minute + i * minute))
+    await wrongPasswords(freshAddress(), email, 2)
+    await sleep(500)
+    expect(mailTo(email)).toEqual([])
   })
 })

@@ -11,7 +11,11 @@ export default defineEventHandler(async (event) => {
   const ok = user
     ? await verifyPassword(user.passwordHash, body.password)
     : (await verifyPassword(await (decoyHash ??= hashPassword('decoy-password-for-timing')), body.password), false)
-  if (!user || !ok) throw createError({ statusCode: 401, message: 'E-mail or password is wrong' })
+  if (!user || !ok) {
+    // Not awaited, so that a known address answers no slower than an unknown one.
+    if (user) event.waitUntil(warnOfFailedSignIns(body.email))
+    throw createError({ statusCode: 401, message: 'E-mail or password is wrong' })
+  }
   await clearSignInFailures(event, body.email)
   await setUserSession(event, { user: sessionUser(user), loggedInAt: Date.now() })
   return { user: sessionUser(user), studios: await studiosOf(user.id) }
