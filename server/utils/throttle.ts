@@ -1,12 +1,21 @@
+import { isIP } from 'node:net'
 import type { H3Event } from 'h3'
 import { Op } from 'sequelize'
 import { SignInFailure } from '../db/models'
 import { failuresToCap, growingDelayWaitMs, hardLimitWaitMs, signInRules, tryAgainIn } from './signInRules'
 import { warnedMarker } from './signInWarning'
 
+// The widest address an address column holds (sign_in_failures.address is VARCHAR(64)).
+const addressColumnLength = 64
+
 export function clientAddress(event: H3Event) {
-  // X-Forwarded-For is believed only behind a proxy we run (NUXT_TRUST_PROXY=true): anyone can send it.
-  return getRequestIP(event, { xForwardedFor: String(useRuntimeConfig().trustProxy) === 'true' }) ?? 'unknown'
+  // X-Forwarded-For is believed only behind a proxy we run (NUXT_TRUST_PROXY=true), and only its
+  // last entry, the one that proxy added: anything before it is whatever the client sent.
+  if (String(useRuntimeConfig().trustProxy) === 'true') {
+    const forwarded = getRequestHeader(event, 'x-forwarded-for')?.split(',').pop()?.trim()
+    if (forwarded && isIP(forwarded) && forwarded.length <= addressColumnLength) return forwarded
+  }
+  return getRequestIP(event) ?? 'unknown'
 }
 
 /** The failures one rule counts, newest first, at most `limit`. */

@@ -189,3 +189,20 @@ describe('the warning mail after repeated failures', () => {
     expect(mailTo(email)).toEqual([])
   })
 })
+
+describe('the client address behind our proxy', () => {
+  it('counts an attempt under the address our proxy added, not the one the client wrote first', async () => {
+    const user = await makeUser('forwarded')
+    const address = freshAddress()
+    testDb()
+    await SignInFailure.bulkCreate(Array.from({ length: 20 }, () => ({ email: uniqueEmail('spray'), address, at: new Date() })))
+    const res = await apiClient().post('/api/auth/login', { email: user.email, password: fixturePassword }, { 'x-forwarded-for': `${freshAddress()}, ${address}` })
+    expect(res.status).toBe(429)
+  })
+
+  it('answers a forwarded value that is not an address like any other sign-in, never with a 500', async () => {
+    const user = await makeUser('garbage')
+    const res = await apiClient().post('/api/auth/login', { email: user.email, password: fixturePassword }, { 'x-forwarded-for': 'x'.repeat(100) })
+    expect(res.status, JSON.stringify(res.body)).toBe(200)
+  })
+})
