@@ -11,7 +11,7 @@ export default defineEventHandler(async (event) => {
   if (!(await verifyPassword(user.passwordHash, body.current))) {
     throw createError({ statusCode: 400, message: 'current: this is not your current password', data: { issues: [{ path: ['current'], message: 'is not your current password' }] } })
   }
-  await clearSignInFailures(email)
+  await clearSignInFailures(event, email)
   await user.update({ passwordHash: await hashPassword(body.password) })
   const ended = await endSessions({ userId: id, except: await currentSid(event) }, 'password changed')
   return { message: ended ? `Password changed; ${ended} other ${ended === 1 ? 'device was' : 'devices were'} signed out.` : 'Password changed.' }
