@@ -42,8 +42,7 @@ export function useKnitSession(pieceId: number) {
     ? knitPosition(timeline.value, compiled.value, completedRows.value, settings.step.value)
     : null))
 
-  const paceKey = `fw-pace-${pieceId}`
-  const paceSteps = useLocalStorage<PaceStep[]>(paceKey, [])
+  const paceSteps = useLocalStorage<PaceStep[]>(knitPaceKey(pieceId), [])
   const finishEstimate = computed(() => {
     const perRow = msPerRow(paceSteps.value)
     if (!position.value || perRow === null) return null

@@ -1,4 +1,4 @@
-import { createSyncer, openFloatwiseDb } from '~~/service'
+import { clearPersonalCaches, createSyncer, deleteUserStore, forgetUserStoreUnlessQueued, openUserStore } from '~~/service'
 
 /** The signed-in person's offline store and syncer (opened on first use). */
 export function useOfflineStore() {
@@ -6,5 +6,6 @@ export function useOfflineStore() {
   const account = useAccountStore()
   const userId = account.me?.user.id
   if (!userId) throw new Error('The offline store needs a signed-in person')
-  return { ...$offline.open(userId, { openFloatwiseDb, createSyncer }), state: $offline.state, reloadNeeded: $offline.reloadNeeded }
+  const code = { openUserStore, createSyncer, deleteUserStore, forgetUserStoreUnlessQueued, clearPersonalCaches }
+  return { ...$offline.open(userId, code), state: $offline.state, reloadNeeded: $offline.reloadNeeded }
 }

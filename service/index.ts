@@ -4,4 +4,6 @@ export { recordStep, resolveConflict, savePiece, readPieceState, StepError, type
 export { createSyncer, type Syncer, type SyncerOptions, type SyncResult } from './sync'
 export { readSyncState, type SyncFailure, type SyncState, type SyncStatus } from './syncStore'
 export { backoffDelay, retryAfterMs } from './backoff'
+export { deleteUserStore, forgetUserStoreUnlessQueued, openUserStore, summariseUnsynced, userStoreName, type UnsyncedSummary } from './userStore'
+export { clearPersonalCaches } from './personalCaches'
 export type * from './types'
