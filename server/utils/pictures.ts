@@ -13,7 +13,8 @@ import type { chartRecord } from '../db/motifs'
 // header before anything is decoded, so a small file claiming a huge picture costs nothing.
 //
 // Answers: 400 a form field or the file is missing; 413 the file is over 5 MB;
-// 415 not PNG, JPEG or WebP; 422 the file is damaged or the picture is over 4096 × 4096.
+// 415 not PNG, JPEG or WebP; 422 the file is damaged or the picture is over 4096 pixels a side
+// or 4 megapixels.
 
 export type PictureType = typeof PICTURE_UPLOAD.types[number]
 export interface PictureUpload { bytes: Buffer; type: PictureType; width: number; height: number }
@@ -76,6 +77,15 @@ export function checkPicture(bytes: Buffer): PictureUpload {
   if (width > PICTURE_UPLOAD.maxSide || height > PICTURE_UPLOAD.maxSide) {
     throw createError({ statusCode: 422, message: `The picture is ${width} × ${height} pixels; at most ${PICTURE_UPLOAD.maxSide} × ${PICTURE_UPLOAD.maxSide} is accepted` })
   }
+  if (width * height > PICTURE_UPLOAD.maxPixels) {
+    const count = (n: number) => n.toLocaleString('en-GB')
+    const side = Math.floor(Math.sqrt(PICTURE_UPLOAD.maxPixels))
+    throw createError({
+      statusCode: 422,
+      message: `The picture is ${width} × ${height} pixels, ${count(width * height)} in all; at most ${count(PICTURE_UPLOAD.maxPixels)} `
+        + `(${PICTURE_UPLOAD.maxPixels / 1e6} megapixels, ${side} × ${side} for example) are accepted, plenty for the largest chart: make it smaller and try again`,
+    })
+  }
   return { bytes, ...sniffed }
 }
 
@@ -84,7 +94,7 @@ export function decodePicture(picture: PictureUpload): { rgba: Uint8Array; width
   let decoded: { data: ArrayLike<number>; width: number; height: number }
   try {
     if (picture.type === 'image/png') decoded = PNG.sync.read(picture.bytes)
-    else if (picture.type === 'image/jpeg') decoded = jpeg.decode(picture.bytes, { useTArray: true, formatAsRGBA: true, maxResolutionInMP: 17, maxMemoryUsageInMB: 256 })
+    else if (picture.type === 'image/jpeg') decoded = jpeg.decode(picture.bytes, { useTArray: true, formatAsRGBA: true, maxResolutionInMP: PICTURE_UPLOAD.maxPixels / 1e6, maxMemoryUsageInMB: 256 })
     else decoded = decodeWebp(picture.bytes)
   }
   catch (e) {
