@@ -1,4 +1,5 @@
 import { fileURLToPath } from 'node:url'
+import { bundlePictureWorker } from './picture-worker.build'
 import { pwa } from './pwa.config'
 import { securityHeaders } from './security-headers'
 
@@ -53,6 +54,9 @@ export default defineNuxtConfig({
     // Where the original motif pictures are kept (NUXT_PICTURES_DIR); empty = the `pictures`
     // storage mount below. Any unstorage driver can replace that mount (see README).
     picturesDir: '',
+    // How long one picture may take to read in its worker before it is stopped with a 422
+    // (NUXT_PICTURE_DECODE_TIMEOUT_MS); a 4-megapixel picture takes well under a second.
+    pictureDecodeTimeoutMs: 10_000,
     // A session cookie is refused 30 days after sign-in (nuxt-auth-utils sets no limit itself).
     session: { maxAge: 30 * 24 * 60 * 60 },
   },
@@ -78,6 +82,7 @@ export default defineNuxtConfig({
     },
     'nitro:init': (nitro) => {
       nitro.hooks.hook('types:extend', (types) => { types.routes = {} })
+      bundlePictureWorker(nitro) // the worker thread that reads pictures
     },
   },
   nitro: {

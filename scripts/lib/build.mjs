@@ -5,7 +5,7 @@ import { log } from './log.mjs'
 import { run } from './run.mjs'
 
 // Everything that goes into .output; tests/ and scripts/ do not.
-const inputs = ['app.vue', 'error.vue', 'nuxt.config.ts', 'pwa.config.ts', 'security-headers.ts', 'tailwind.config.ts', 'package-lock.json', 'tsconfig.json',
+const inputs = ['app.vue', 'error.vue', 'nuxt.config.ts', 'pwa.config.ts', 'security-headers.ts', 'picture-worker.build.ts', 'tailwind.config.ts', 'package-lock.json', 'tsconfig.json',
   'spa-loading-template.html', 'pages', 'components', 'composables', 'stores', 'layouts', 'middleware', 'plugins', 'assets', 'public', 'server', 'shared', 'service']
 
 function hashInputs(root) {

@@ -1,21 +1,23 @@
 import type { H3Event } from 'h3'
-import { decode as decodeWebp } from '@cwasm/webp'
-import jpeg from 'jpeg-js'
-import { PNG } from 'pngjs'
-import { areaAverage, chartToRows, imageToChart, KnittingInputError, otsuThreshold } from '../../shared/knitting'
 import { PICTURE_UPLOAD } from '../../shared/validation/motif'
 import type { PicturePreviewFields } from '../../shared/validation/motif'
+import type { PictureType } from '../pictures/chartFromPicture'
+import { chartInWorker, DecoderFailedError, DecodeRefusal, decodeQueue, DecodeTimeoutError } from '../pictures/decodePool'
+import { QueueFullError } from '../pictures/decodeQueue'
 import { Motif } from '../db/models'
 import type { chartRecord } from '../db/motifs'
 
 // Pictures a motif is made from. The type is read from the bytes (magic numbers), never
 // from the file name or the declared content type; the size in pixels is read from the
 // header before anything is decoded, so a small file claiming a huge picture costs nothing.
+// Decoding happens in a worker thread (server/pictures/), one picture at a time per user.
 //
 // Answers: 400 a form field or the file is missing; 413 the file is over 5 MB;
-// 415 not PNG, JPEG or WebP; 422 the file is damaged or the picture is over 4096 × 4096.
+// 415 not PNG, JPEG or WebP; 422 the file is damaged, the picture is over 4096 pixels a side
+// or 4 megapixels, or it took too long to read; 429 the user already has pictures waiting;
+// 503 the server has too many pictures waiting or cannot start a decoder.
 
-export type PictureType = typeof PICTURE_UPLOAD.types[number]
+export type { PictureType }
 export interface PictureUpload { bytes: Buffer; type: PictureType; width: number; height: number }
 
 function corrupt(detail: string) {
@@ -76,66 +78,56 @@ export function checkPicture(bytes: Buffer): PictureUpload {
   if (width > PICTURE_UPLOAD.maxSide || height > PICTURE_UPLOAD.maxSide) {
     throw createError({ statusCode: 422, message: `The picture is ${width} × ${height} pixels; at most ${PICTURE_UPLOAD.maxSide} × ${PICTURE_UPLOAD.maxSide} is accepted` })
   }
+  if (width * height > PICTURE_UPLOAD.maxPixels) {
+    const count = (n: number) => n.toLocaleString('en-GB')
+    const side = Math.floor(Math.sqrt(PICTURE_UPLOAD.maxPixels))
+    throw createError({
+      statusCode: 422,
+      message: `The picture is ${width} × ${height} pixels, ${count(width * height)} in all; at most ${count(PICTURE_UPLOAD.maxPixels)} `
+        + `(${PICTURE_UPLOAD.maxPixels / 1e6} megapixels, ${side} × ${side} for example) are accepted, plenty for the largest chart: make it smaller and try again`,
+    })
+  }
   return { bytes, ...sniffed }
 }
 
-/** RGBA pixels, top row first; a damaged file is a 422. */
-export function decodePicture(picture: PictureUpload): { rgba: Uint8Array; width: number; height: number } {
-  let decoded: { data: ArrayLike<number>; width: number; height: number }
-  try {
-    if (picture.type === 'image/png') decoded = PNG.sync.read(picture.bytes)
-    else if (picture.type === 'image/jpeg') decoded = jpeg.decode(picture.bytes, { useTArray: true, formatAsRGBA: true, maxResolutionInMP: 17, maxMemoryUsageInMB: 256 })
-    else decoded = decodeWebp(picture.bytes)
-  }
-  catch (e) {
-    throw corrupt((e as Error).message || 'the file is damaged')
-  }
-  if (decoded.width !== picture.width || decoded.height !== picture.height) {
-    throw corrupt(`the header says ${picture.width} × ${picture.height} pixels but the picture is ${decoded.width} × ${decoded.height}`)
-  }
-  const rgba = decoded.data instanceof Uint8Array ? decoded.data : Uint8Array.from(decoded.data)
-  return { rgba, width: decoded.width, height: decoded.height }
-}
-
 /**
- * Otsu's threshold for the picture at chart size, on the same grey levels imageToChart
- * uses (composited over white, Rec. 709 weights, area-averaged, rounded). The engine
- * picks Otsu's value itself when no threshold is given but does not say which it was;
- * the preview shows it. Rows are narrowed one at a time with the engine's areaAverage and
- * then averaged down, which adds the same terms in the same order as imageToChart.
+ * The chart a picture makes with the form's size, threshold and invert, made in a worker
+ * thread when it is `userId`'s turn (server/pictures/decodePool.ts).
  */
-function otsuFor(rgba: Uint8Array, width: number, height: number, target: { width: number; height: number }) {
-  const grey = new Float64Array(width)
-  const narrowed = new Float64Array(height * target.width)
-  for (let y = 0; y < height; y++) {
-    for (let x = 0; x < width; x++) {
-      const i = (y * width + x) * 4
-      const alpha = rgba[i + 3]! / 255
-      const white = 255 * (1 - alpha)
-      grey[x] = 0.2126 * (rgba[i]! * alpha + white) + 0.7152 * (rgba[i + 1]! * alpha + white) + 0.0722 * (rgba[i + 2]! * alpha + white)
-    }
-    narrowed.set(areaAverage(grey, width, 1, target.width, 1), y * target.width)
-  }
-  const cells = areaAverage(narrowed, target.width, height, target.width, target.height)
-  const histogram = new Float64Array(256)
-  for (const value of cells) histogram[Math.min(255, Math.max(0, Math.round(value + 1e-9)))]! += 1
-  return otsuThreshold(histogram)
-}
-
-/** The chart a picture makes with the form's size, threshold and invert. */
-export function pictureChart(picture: PictureUpload, fields: Pick<PicturePreviewFields, 'width' | 'height' | 'threshold' | 'invert'>) {
-  const { rgba, width, height } = decodePicture(picture)
-  const target = { width: fields.width, height: fields.height }
+export async function pictureChart(event: H3Event, userId: number, picture: PictureUpload, fields: Pick<PicturePreviewFields, 'width' | 'height' | 'threshold' | 'invert'>) {
+  const target = { width: fields.width, height: fields.height, threshold: fields.threshold, invert: fields.invert }
+  const job = { bytes: picture.bytes, type: picture.type, width: picture.width, height: picture.height, target }
   try {
-    const otsu = otsuFor(rgba, width, height, target)
-    const threshold = fields.threshold ?? otsu
-    const chart = imageToChart(rgba, width, height, { ...target, threshold, invert: fields.invert ?? false })
-    return { chart, threshold, otsu, rows: chartToRows(chart) }
+    return await decodeQueue.run(String(userId), () => chartInWorker(job, Number(useRuntimeConfig().pictureDecodeTimeoutMs)))
   }
   catch (e) {
-    if (e instanceof KnittingInputError) throw fieldError(e.field ?? 'picture', e.message)
-    throw e
+    throw pictureChartError(event, e)
   }
+}
+
+/** What a failure to make the chart answers. */
+function pictureChartError(event: H3Event, e: unknown) {
+  if (e instanceof DecodeRefusal) {
+    return e.answer.kind === 'refused' ? fieldError(e.answer.field, e.answer.message) : corrupt(e.answer.message)
+  }
+  if (e instanceof DecodeTimeoutError) {
+    return createError({ statusCode: 422, message: `The picture took too long to read and was stopped (${e.message}): try a smaller or simpler picture` })
+  }
+  if (e instanceof QueueFullError) {
+    setResponseHeader(event, 'Retry-After', e.whose === 'user' ? 2 : 5)
+    return e.whose === 'user'
+      ? createError({ statusCode: 429, message: `You already have ${decodeQueue.perUser} pictures being read or waiting to be; wait for them to finish, then try again` })
+      : createError({ statusCode: 503, message: 'The server is reading many pictures just now; try again in a few seconds' })
+  }
+  if (e instanceof DecoderFailedError) {
+    // Stopping part-way is the picture's doing (e.g. over the worker's memory limit); not
+    // starting at all is ours.
+    if (e.started) return corrupt(`the decoder stopped on it (${e.message})`)
+    console.error('[pictures] the decoder worker did not start:', e.message)
+    setResponseHeader(event, 'Retry-After', 30)
+    return createError({ statusCode: 503, message: 'Pictures cannot be read just now; try again later' })
+  }
+  return e
 }
 
 /** The multipart form of a picture route: its text fields and the `picture` file's bytes. */

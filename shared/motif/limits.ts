@@ -4,10 +4,16 @@
 /** Size limits of a stored motif (the same as a chart made from a picture). */
 export const MOTIF_LIMITS = Object.freeze({ maxWidth: 200, maxHeight: 500 })
 
-/** Picture uploads: at most 5 MB, at most 4096 × 4096 pixels, PNG, JPEG or WebP (checked by the bytes). */
+/**
+ * Picture uploads: at most 5 MB, at most 4096 pixels a side and 4 megapixels in all, PNG, JPEG
+ * or WebP (checked by the bytes). The largest chart is 200 × 500 stitches: 4 megapixels still
+ * give each of its 100,000 cells 40 pixels to average, and the cap bounds what one upload may
+ * cost to decode (a 30-byte WebP may declare 4096 × 4096, 64 MB of pixels).
+ */
 export const PICTURE_UPLOAD = Object.freeze({
   maxBytes: 5 * 1024 * 1024,
   maxSide: 4096,
+  maxPixels: 4_000_000,
   types: ['image/png', 'image/jpeg', 'image/webp'] as const,
 })
 

@@ -3,7 +3,7 @@ import { join } from 'node:path'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { signedIn, type ApiClient } from '../support/api'
 import { closeTestDb, fixturePassword, makeStudio } from '../support/db'
-import { chartPicture, jpegOf, pictureForm, pngOf } from '../support/pictures'
+import { chartPicture, jpegOf, pictureForm, pngBomb, pngOf, webpBomb } from '../support/pictures'
 import { Motif } from '../../server/db/models'
 import { chartToRows, imageToChart, otsuThreshold } from '../../shared/knitting'
 import type { PicturePreview } from '../../shared/types/motif'
@@ -220,6 +220,21 @@ describe('refused pictures store nothing', () => {
     const wide = await upload(designer, {}, pngOf(4097, 1, () => [0, 0, 0, 255]))
     expect(wide.status).toBe(422)
     expect(wide.body.message).toContain('4097 × 1 pixels')
+    await expectNothingStored(before)
+  })
+
+  // Decompression bombs (tests/support/pictures.ts): valid pictures a decoder would spend
+  // seconds and hundreds of MB on, refused from the header alone.
+  it.each([
+    ['a 30-byte WebP declaring 4096 × 4096', () => webpBomb(4096, 4096), 'webp', '4096 × 4096 pixels, 16,777,216 in all'],
+    ['an all-zero PNG one row over 4 megapixels', () => pngBomb(2000, 2001), 'png', '2000 × 2001 pixels, 4,002,000 in all'],
+  ])('%s → 422 naming its size and the pixel cap, nothing stored', async (_, bomb, ext, size) => {
+    const before = await snapshot()
+    const res = await upload(designer, {}, bomb(), `bomb.${ext}`, `image/${ext}`)
+    // Decoding would have made a motif (201: both are valid pictures) or said "could not be read".
+    expect(res.status, JSON.stringify(res.body)).toBe(422)
+    expect(res.body.message).toContain(size)
+    expect(res.body.message).toContain('at most 4,000,000 (4 megapixels, 2000 × 2000 for example) are accepted')
     await expectNothingStored(before)
   })
 

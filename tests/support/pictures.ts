@@ -1,3 +1,4 @@
+import { crc32, deflateSync } from 'node:zlib'
 import jpeg from 'jpeg-js'
 import { PNG } from 'pngjs'
 
@@ -41,4 +42,57 @@ export function pictureForm(fields: Record<string, string | number | boolean>, p
   for (const [key, value] of Object.entries(fields)) form.append(key, String(value))
   if (picture) form.append('picture', new Blob([new Uint8Array(picture)], { type }), filename)
   return form
+}
+
+/**
+ * A lossless WebP of `width` × `height` transparent black pixels in about 30 bytes: every
+ * prefix code has a single symbol, so each pixel takes no bits at all and the decoder still
+ * writes width × height × 4 bytes. (VP8L bitstream: signature, 14-bit sizes, no transform,
+ * no colour cache, no meta prefix codes, five "simple" one-symbol codes for symbol 0.)
+ */
+export function webpBomb(width: number, height: number): Buffer {
+  const bits: number[] = []
+  const put = (value: number, count: number) => { for (let i = 0; i < count; i++) bits.push((value >>> i) & 1) }
+  put(0x2F, 8)
+  put(width - 1, 14)
+  put(height - 1, 14)
+  put(0, 1 + 3) // alpha hint, version 0
+  put(0, 3) // no transform, no colour cache, no meta prefix codes
+  for (let code = 0; code < 5; code++) put(0b0001, 4) // simple code, one symbol, 1-bit symbol 0
+  const payload = Buffer.alloc(Math.ceil(bits.length / 8) + 2) // padded: an even chunk of at least 10 bytes
+  bits.forEach((bit, i) => { payload[i >> 3]! |= bit << (i & 7) })
+  const header = Buffer.alloc(20)
+  header.write('RIFF', 0, 'latin1')
+  header.writeUInt32LE(12 + payload.length, 4)
+  header.write('WEBPVP8L', 8, 'latin1')
+  header.writeUInt32LE(payload.length, 16)
+  return Buffer.concat([header, payload])
+}
+
+/**
+ * A PNG of `width` × `height` black, transparent pixels: all zeros, deflated about 1000 : 1.
+ * 16 bits a channel and the Paeth filter on every row make it the slowest kind to decode
+ * (pngjs takes several times as long as for 8 bits unfiltered).
+ */
+export function pngBomb(width: number, height: number, { bitDepth = 8, paeth = false }: { bitDepth?: 8 | 16; paeth?: boolean } = {}): Buffer {
+  const chunk = (type: string, data: Buffer) => {
+    const body = Buffer.concat([Buffer.from(type, 'latin1'), data])
+    const framed = Buffer.alloc(body.length + 8)
+    framed.writeUInt32BE(data.length, 0)
+    body.copy(framed, 4)
+    framed.writeUInt32BE(crc32(body), body.length + 4)
+    return framed
+  }
+  const ihdr = Buffer.alloc(13)
+  ihdr.writeUInt32BE(width, 0)
+  ihdr.writeUInt32BE(height, 4)
+  ihdr[8] = bitDepth
+  ihdr[9] = 6 // RGBA
+  const rowBytes = 1 + width * 4 * bitDepth / 8
+  const scanlines = Buffer.alloc(height * rowBytes) // a filter byte, then zero pixels, every row
+  if (paeth) for (let y = 0; y < height; y++) scanlines[y * rowBytes] = 4
+  return Buffer.concat([
+    Buffer.from([0x89, 0x50, 0x4E, 0x47, 0x0D, 0x0A, 0x1A, 0x0A]),
+    chunk('IHDR', ihdr), chunk('IDAT', deflateSync(scanlines, { level: 9 })), chunk('IEND', Buffer.alloc(0)),
+  ])
 }

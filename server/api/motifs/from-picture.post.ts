@@ -11,7 +11,7 @@ export default defineEventHandler(async (event) => {
   await requireStudioRole(event, studioId, 'designer')
   const form = inputValid(pictureMotifFields, fields)
   const picture = requirePictureFile(file)
-  const { chart } = pictureChart(picture, form)
+  const { chart } = await pictureChart(event, user.id, picture, form)
   const id = await insertPictureMotif({
     studioId, name: form.name, published: false, createdBy: user.id, updatedBy: user.id, ...chartRecord(chart),
   }, picture)

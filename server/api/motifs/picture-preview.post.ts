@@ -4,11 +4,11 @@ import { picturePreviewFields } from '../../../shared/validation/motif'
 
 // The chart a picture would make (multipart/form-data, like from-picture); nothing is stored.
 export default defineEventHandler(async (event): Promise<PicturePreview> => {
-  await requireUser(event)
+  const user = await requireUser(event)
   const { fields, file } = await readPictureForm(event)
   const { studioId } = inputValid(studioQuery, fields)
   await requireStudioRole(event, studioId, 'designer')
   const form = inputValid(picturePreviewFields, fields)
-  const { chart, threshold, otsu, rows } = pictureChart(requirePictureFile(file), form)
+  const { chart, threshold, otsu, rows } = await pictureChart(event, user.id, requirePictureFile(file), form)
   return { width: chart.width, height: chart.height, threshold, otsu, rows }
 })
