@@ -12,7 +12,7 @@ export default defineConfig({
       : [
           { test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node' } },
           await defineVitestProject({
-            test: { name: 'nuxt', include: ['tests/nuxt/**/*.test.ts'], environment: 'nuxt' },
+            test: { name: 'nuxt', include: ['tests/nuxt/**/*.test.ts'], environment: 'nuxt', hookTimeout: 60_000 },
           }),
           {
             test: {

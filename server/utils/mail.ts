@@ -6,7 +6,9 @@ function useTransport() {
   if (!transport) {
     const { smtpUrl } = useRuntimeConfig()
     if (!smtpUrl) throw new Error('No mail server configured: set SMTP_URL, or start through `npm start` for the local mail fake')
-    transport = nodemailer.createTransport(smtpUrl)
+    // Pooled: the queue sends several mails at once over kept connections (nodemailer reads
+    // options from the URL's query).
+    transport = nodemailer.createTransport(/[?&]pool=/.test(smtpUrl) ? smtpUrl : `${smtpUrl}${smtpUrl.includes('?') ? '&' : '?'}pool=true`)
   }
   return transport
 }

@@ -129,23 +129,34 @@ async function sendDue() {
       return claimed
     })
     if (ids.length === 0) return
-    for (const id of ids) {
-      const mail = await QueuedMail.findByPk(id)
-      if (!mail || mail.sentAt) continue
-      try {
-        const delivered = await deliver(mail)
-        await mail.update({ sentAt: new Date(), body: null, subject: delivered ? mail.subject : '(no account: nothing sent)', lastError: null })
-      }
-      catch (error) {
-        const attempts = mail.attempts + 1
-        const wait = backoffMs[attempts - 1]
-        await mail.update({
-          attempts,
-          lastError: String((error as Error)?.message ?? error).slice(0, 255),
-          ...(wait === undefined ? { failedAt: new Date(), body: null } : { nextAttemptAt: new Date(Date.now() + wait) }),
-        })
-      }
-    }
+    // The claimed batch goes out together (the transport pools its connections).
+    await Promise.all(ids.map(sendOne))
+  }
+}
+
+// A mail server that stops answering must not hold up the queue: the mail is retried later.
+const sendTimeoutMs = 30_000
+function withTimeout<T>(work: Promise<T>, ms: number) {
+  let timer: NodeJS.Timeout | undefined
+  const late = new Promise<never>((_, reject) => { timer = setTimeout(() => reject(new Error(`no answer from the mail server within ${ms / 1000} s`)), ms) })
+  return Promise.race([work, late]).finally(() => clearTimeout(timer))
+}
+
+async function sendOne(id: number) {
+  const mail = await QueuedMail.findByPk(id)
+  if (!mail || mail.sentAt) return
+  try {
+    const delivered = await withTimeout(deliver(mail), sendTimeoutMs)
+    await mail.update({ sentAt: new Date(), body: null, subject: delivered ? mail.subject : '(no account: nothing sent)', lastError: null })
+  }
+  catch (error) {
+    const attempts = mail.attempts + 1
+    const wait = backoffMs[attempts - 1]
+    await mail.update({
+      attempts,
+      lastError: String((error as Error)?.message ?? error).slice(0, 255),
+      ...(wait === undefined ? { failedAt: new Date(), body: null } : { nextAttemptAt: new Date(Date.now() + wait) }),
+    })
   }
 }
 

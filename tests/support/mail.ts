@@ -10,8 +10,11 @@ export function mailTo(address: string, dir = inject('mailDir')): CapturedMail[]
     .filter(m => m.to.split(', ').includes(address))
 }
 
-/** Waits for the n-th mail to an address (mail is sent before the route answers, so this is quick). */
-export async function waitForMail(address: string, count = 1, timeoutMs = 5000): Promise<CapturedMail> {
+/**
+ * Waits for the n-th mail to an address. Mail is sent from a queue after the route answers,
+ * and every test file shares one server's queue (the fuzz fills it), hence the generous wait.
+ */
+export async function waitForMail(address: string, count = 1, timeoutMs = 20_000): Promise<CapturedMail> {
   const until = Date.now() + timeoutMs
   for (;;) {
     const mails = mailTo(address)
