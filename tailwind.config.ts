@@ -27,6 +27,7 @@ export default {
         ok: 'rgb(var(--fw-ok) / <alpha-value>)',
         warn: 'rgb(var(--fw-warn) / <alpha-value>)',
         danger: 'rgb(var(--fw-danger) / <alpha-value>)',
+        'danger-ink': 'rgb(var(--fw-danger-ink) / <alpha-value>)',
         // Fixed brand hues: deep loch teal, heather, oat.
         loch: { 50: '#eef6f7', 100: '#d3e7ea', 300: '#7fb2bb', 500: '#2f6f7f', 700: '#1f4e5f', 900: '#10303b' },
         heather: { 100: '#f1e6ee', 300: '#c9a3bd', 500: '#8e5a7e', 700: '#643c58' },

@@ -36,6 +36,12 @@ async function serverRows(email: string, pieceId: number) {
   return (await api.get(`/api/pieces/${pieceId}/progress`)).body.completedRows as number
 }
 
+async function seriousAxeViolations(page: Page) {
+  await page.addScriptTag({ path: createRequire(import.meta.url).resolve('axe-core/axe.min.js') })
+  const result = await page.evaluate(async () => (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string }[] }> } }).axe.run())
+  return result.violations.filter(v => v.impact === 'serious' || v.impact === 'critical').map(v => v.id)
+}
+
 /** Signs in, opens the piece, goes offline and knits one row pair, then goes to the dashboard (offline, from the shell). */
 async function knitOneStepOffline(context: BrowserContext, email: string, pieceId: number) {
   const page = await context.newPage()
@@ -68,9 +74,7 @@ describe('signing out', () => {
     // Staying is the default: it has the focus, so Enter or a stray tap on the keyboard keeps the rows.
     expect(await page.evaluate(() => (document.activeElement as HTMLElement | null)?.dataset.test)).toBe('sign-out-stay')
     await screenshot(page, 'sign-out-warning-1024x768')
-    await page.addScriptTag({ path: createRequire(import.meta.url).resolve('axe-core/axe.min.js') })
-    const axe = await page.evaluate(async () => (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string }[] }> } }).axe.run())
-    expect(axe.violations.filter(v => v.impact === 'serious' || v.impact === 'critical').map(v => v.id)).toEqual([])
+    expect(await seriousAxeViolations(page)).toEqual([])
     await page.click('[data-test="sign-out-stay"]')
     await page.waitForSelector('[data-test="sign-out-warning"]', { state: 'detached' })
     expect(new URL(page.url()).pathname).toBe('/')
@@ -97,7 +101,7 @@ describe('signing out', () => {
 
     // The next person on the tablet.
     await signIn(page, outsider.email, fixturePassword)
-    await page.waitForURL(url => url.pathname === '/')
+    await page.waitForSelector('[data-test="dashboard"]')
     expect(await page.textContent('h1')).toContain('Hello, Test')
     await waitForUserStores(page, [`floatwise-user-${outsider.id}`])
     expect((await storageKeys(page)).filter(k => k.startsWith('fw-pace-'))).toEqual([])
@@ -107,10 +111,12 @@ describe('signing out', () => {
 
   it('offline, “Sign out and discard” removes the step and the store, and the session ends when the server answers again', async () => {
     const { knitter, pieceId } = await twoPeople()
-    const context = await newTabletContext(browser, 'portrait')
+    const context = await newTabletContext(browser, 'portrait', { dark: true })
     const page = await knitOneStepOffline(context, knitter.email, pieceId)
     await page.click('[data-test="sign-out"]')
     await page.waitForSelector('[data-test="sign-out-discard"]')
+    await screenshot(page, 'sign-out-warning-portrait-dark')
+    expect(await seriousAxeViolations(page)).toEqual([])
     await page.click('[data-test="sign-out-discard"]')
     await page.waitForURL(/\/login/)
     await page.waitForSelector('[data-test="login-form"]')
