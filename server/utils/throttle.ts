@@ -8,8 +8,7 @@ const perAccount = 5
 const perAddress = 20
 
 export function clientAddress(event: H3Event) {
-  // X-Forwarded-For is believed only behind a proxy we run (NUXT_TRUST_PROXY=true): anyone can send it.
-  return getRequestIP(event, { xForwardedFor: String(useRuntimeConfig().trustProxy) === 'true' }) ?? 'unknown'
+  return getRequestIP(event, { xForwardedFor: trustsProxy() }) ?? 'unknown'
 }
 
 /**

@@ -1,7 +1,8 @@
 import { randomUUID } from 'node:crypto'
 import * as iron from 'iron-webcrypto'
-import { afterAll, describe, expect, it } from 'vitest'
+import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { apiClient, signedIn, uniqueEmail } from '../support/api'
+import { startAppServer } from '../support/appServer'
 import { closeTestDb, fixturePassword, makeStudio, makeUser } from '../support/db'
 import { storedRows } from '../support/storedRows'
 import { linkIn, waitForMail } from '../support/mail'
@@ -123,5 +124,55 @@ describe('security at the edge', () => {
     expect(unknown.status).toBe(404)
     expect(unknown.body.message).toContain('/api/no/such/thing')
     for (const body of [broken.body, unknown.body]) expect(JSON.stringify(body)).not.toMatch(/stack|\.mjs:\d+/)
+  })
+})
+
+// The test server listens on 127.0.0.1 with NUXT_APP_URL http://127.0.0.1:<port> and
+// NUXT_TRUST_PROXY=true (tests/support/appServer.ts).
+describe('the same-origin rule for writes', () => {
+  const yarnFor = (studioId: number) => ({ studioId, name: 'Cross-origin yarn', hex: '#445566', weightCategory: 1, metresPer100g: 400 })
+
+  it('refuses a write whose Origin is null (a sandboxed page, a plain form) or a sibling site, with no Sec-Fetch-Site to rely on', async () => {
+    const f = await makeStudio()
+    const owner = await signedIn(f.owner.email, fixturePassword)
+    const before = await storedRows([f.studio.id])
+    for (const headers of [{ origin: 'null' }, { 'sec-fetch-site': 'same-site' }] as Record<string, string>[]) {
+      const res = await owner.post('/api/yarns', yarnFor(f.studio.id), headers)
+      expect(res.status, JSON.stringify(headers)).toBe(403)
+      expect(res.body.message).toMatch(/Cross-site request refused/)
+    }
+    expect(await storedRows([f.studio.id])).toEqual(before)
+  })
+
+  it('compares the scheme and the port with ours, not only the host name', async () => {
+    const f = await makeStudio()
+    const owner = await signedIn(f.owner.email, fixturePassword)
+    const { port } = new URL(inject('baseUrl'))
+    const before = await storedRows([f.studio.id])
+    for (const origin of [`https://127.0.0.1:${port}`, `http://127.0.0.1:${Number(port) + 1}`, 'http://127.0.0.1']) {
+      const res = await owner.post('/api/yarns', yarnFor(f.studio.id), { origin })
+      expect(res.status, origin).toBe(403)
+    }
+    expect(await storedRows([f.studio.id])).toEqual(before)
+    expect((await owner.post('/api/yarns', yarnFor(f.studio.id), { origin: `http://127.0.0.1:${port}` })).status).toBe(201)
+  })
+})
+
+describe('a server without a proxy (NUXT_TRUST_PROXY=false)', () => {
+  let server: Awaited<ReturnType<typeof startAppServer>>
+  beforeAll(async () => {
+    server = await startAppServer({ NUXT_TRUST_PROXY: 'false' })
+  })
+  afterAll(() => server?.close())
+
+  it('ignores X-Forwarded-Host and X-Forwarded-Proto: anyone can send them', async () => {
+    const client = apiClient(server.baseUrl)
+    const reset = { email: uniqueEmail('forwarded') }
+    const forged = await client.post('/api/auth/password-reset', reset, { 'origin': 'http://forged.example', 'x-forwarded-host': 'forged.example' })
+    expect(forged.status).toBe(403)
+    const proto = await client.post('/api/auth/password-reset', reset, { 'origin': server.baseUrl.replace('http:', 'https:'), 'x-forwarded-proto': 'https' })
+    expect(proto.status).toBe(403)
+    expect((await client.get('/api/health', { 'x-forwarded-host': 'forged.example' })).status).toBe(200)
+    expect((await client.post('/api/auth/password-reset', reset, { origin: server.baseUrl })).status).toBe(202)
   })
 })
