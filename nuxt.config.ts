@@ -50,6 +50,9 @@ export default defineNuxtConfig({
     // Only the server needs these; the app shell is prerendered, so public values would freeze at build time.
     appUrl: 'http://localhost:3000',
     trustProxy: false,
+    // Host names answered besides the app URL's, localhost and IP addresses (NUXT_ALLOWED_HOSTS,
+    // comma-separated): every other Host gets 421 (server/utils/ownHosts.ts).
+    allowedHosts: '',
     // Where the original motif pictures are kept (NUXT_PICTURES_DIR); empty = the `pictures`
     // storage mount below. Any unstorage driver can replace that mount (see README).
     picturesDir: '',

@@ -1,5 +1,6 @@
 // A body size limit, and a same-origin rule for requests that change things (a cross-site
-// form post carrying our cookie is refused). The headers are route rules (security-headers.ts).
+// form post carrying our cookie is refused). The Host itself is checked before this, for
+// every request (server/plugins/own-host.ts); the headers are route rules (security-headers.ts).
 const maxBodyBytes = 1024 * 1024
 const uploadBodyBytes = 6 * 1024 * 1024
 // Routes that take a picture (at most 5 MB, checked again by the route) in a multipart form.

@@ -3,6 +3,7 @@ import * as iron from 'iron-webcrypto'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { apiClient, signedIn, uniqueEmail } from '../support/api'
 import { startAppServer } from '../support/appServer'
+import { rawRequest } from '../support/rawHttp'
 import { closeTestDb, fixturePassword, makeStudio, makeUser } from '../support/db'
 import { storedRows } from '../support/storedRows'
 import { linkIn, waitForMail } from '../support/mail'
@@ -158,10 +159,37 @@ describe('the same-origin rule for writes', () => {
   })
 })
 
-describe('a server without a proxy (NUXT_TRUST_PROXY=false)', () => {
+describe('the Host a request names (DNS rebinding)', () => {
+  it('answers 421 to a Host that is not ours on every route: the shell, pages, scripts, the API, reads and writes', async () => {
+    const baseUrl = inject('baseUrl')
+    const script = (await rawRequest(baseUrl, '/')).body.match(/src="(\/_nuxt\/[^"]+\.js)"/)![1]!
+    const calls = [['GET', '/'], ['GET', '/index.html'], ['GET', '/login'], ['GET', script], ['GET', '/api/health'], ['GET', '/api/me'], ['GET', '/api/no/such'], ['POST', '/api/auth/login']]
+    for (const [method, path] of calls) {
+      const res = await rawRequest(baseUrl, path!, { method, headers: { 'host': 'rebound.example', 'content-type': 'application/json' }, body: method === 'POST' ? '{}' : undefined })
+      expect(res.status, `${method} ${path}`).toBe(421)
+      expect(res.body, `${method} ${path}`).toContain('rebound.example')
+    }
+    // Behind the proxy the tests play, the forwarded name is the one the browser used.
+    const forwarded = await rawRequest(baseUrl, '/api/health', { headers: { 'x-forwarded-host': 'rebound.example' } })
+    expect(forwarded.status).toBe(421)
+    const garbled = await rawRequest(baseUrl, '/api/health', { headers: { host: 'bad host name' } })
+    expect(garbled.status).toBe(400)
+  })
+
+  it('answers our app URL\'s host, the loopback names and any address typed as an IP (a tablet on the LAN)', async () => {
+    const baseUrl = inject('baseUrl')
+    const { port } = new URL(baseUrl)
+    for (const host of [`127.0.0.1:${port}`, `localhost:${port}`, `[::1]:${port}`, '192.168.1.20:3000', '10.0.0.7', `[fd00::20]:${port}`]) {
+      const res = await rawRequest(baseUrl, '/api/health', { headers: { host } })
+      expect(res.status, host).toBe(200)
+    }
+  })
+})
+
+describe('a server without a proxy (NUXT_TRUST_PROXY=false), with NUXT_ALLOWED_HOSTS', () => {
   let server: Awaited<ReturnType<typeof startAppServer>>
   beforeAll(async () => {
-    server = await startAppServer({ NUXT_TRUST_PROXY: 'false' })
+    server = await startAppServer({ NUXT_TRUST_PROXY: 'false', NUXT_ALLOWED_HOSTS: 'knitroom.local, Studio.Example' })
   })
   afterAll(() => server?.close())
 
@@ -172,7 +200,19 @@ describe('a server without a proxy (NUXT_TRUST_PROXY=false)', () => {
     expect(forged.status).toBe(403)
     const proto = await client.post('/api/auth/password-reset', reset, { 'origin': server.baseUrl.replace('http:', 'https:'), 'x-forwarded-proto': 'https' })
     expect(proto.status).toBe(403)
+    // A forwarded name that is not ours changes nothing either: the Host is ours.
     expect((await client.get('/api/health', { 'x-forwarded-host': 'forged.example' })).status).toBe(200)
     expect((await client.post('/api/auth/password-reset', reset, { origin: server.baseUrl })).status).toBe(202)
+  })
+
+  it('answers the names listed in NUXT_ALLOWED_HOSTS, and takes writes from their own origin', async () => {
+    for (const host of [`knitroom.local:${server.port}`, 'studio.example']) {
+      expect((await rawRequest(server.baseUrl, '/api/health', { headers: { host } })).status, host).toBe(200)
+    }
+    const body = JSON.stringify({ email: uniqueEmail('allowed') })
+    const write = (origin: string) => rawRequest(server.baseUrl, '/api/auth/password-reset', { method: 'POST', headers: { 'host': `knitroom.local:${server.port}`, origin, 'content-type': 'application/json' }, body })
+    expect((await write(`http://knitroom.local:${server.port}`)).status).toBe(202)
+    expect((await write(`http://studio.example:${server.port}`)).status).toBe(403)
+    expect((await rawRequest(server.baseUrl, '/api/health', { headers: { host: 'knitroom.local.rebound.example' } })).status).toBe(421)
   })
 })
