@@ -1,6 +1,6 @@
 import { fileURLToPath } from 'node:url'
 import { pwa } from './pwa.config'
-import { securityHeaders } from './security-headers'
+import { apiAnswerHeaders, securityHeaders } from './security-headers'
 
 // srcDir is the project root: pages/, components/ … stand beside server/ and shared/.
 export default defineNuxtConfig({
@@ -68,6 +68,7 @@ export default defineNuxtConfig({
   },
   routeRules: {
     '/**': { headers: securityHeaders },
+    '/api/**': { headers: apiAnswerHeaders },
   },
   hooks: {
     // Nitro types `$fetch('/api/…')` by matching the path against every route at compile time;

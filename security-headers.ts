@@ -25,3 +25,11 @@ export const securityHeaders: Record<string, string> = {
   'Permissions-Policy': 'camera=(), microphone=(), geolocation=(), screen-wake-lock=(self)',
   'Cross-Origin-Opener-Policy': 'same-origin',
 }
+
+// API answers are the signed-in person's own (their studio, their rows): no cache between
+// them and the tablet may keep one, nor the browser's. The app never relies on the HTTP
+// cache for them (the service worker leaves /api/ alone; the offline copy is IndexedDB).
+// /api/health is no exception: a stored health answer would hide an outage.
+export const apiAnswerHeaders: Record<string, string> = {
+  'Cache-Control': 'no-store',
+}

@@ -216,3 +216,15 @@ describe('a server without a proxy (NUXT_TRUST_PROXY=false), with NUXT_ALLOWED_H
     expect((await rawRequest(server.baseUrl, '/api/health', { headers: { host: 'knitroom.local.rebound.example' } })).status).toBe(421)
   })
 })
+
+describe('response headers', () => {
+  it('marks every API answer as not to be stored, signed in or not, while scripts keep their long cache', async () => {
+    const knitter = await signedIn('knitter@floatwise.test', 'floatwise-demo')
+    for (const [client, path] of [[knitter, '/api/me'], [knitter, '/api/projects'], [knitter, '/api/yarns'], [apiClient(), '/api/me'], [apiClient(), '/api/health']] as const) {
+      const res = await client.get(path)
+      expect(res.headers.get('cache-control'), `${path} (${res.status})`).toBe('no-store')
+    }
+    const script = (await apiClient().get('/')).body.match(/src="(\/_nuxt\/[^"]+\.js)"/)[1]
+    expect((await apiClient().get(script)).headers.get('cache-control')).toBe('public, max-age=31536000, immutable')
+  })
+})
