@@ -227,4 +227,10 @@ describe('response headers', () => {
     const script = (await apiClient().get('/')).body.match(/src="(\/_nuxt\/[^"]+\.js)"/)[1]
     expect((await apiClient().get(script)).headers.get('cache-control')).toBe('public, max-age=31536000, immutable')
   })
+
+  it('does not say what the server is made of (no x-powered-by)', async () => {
+    for (const path of ['/', '/login', '/projects', '/api/health', '/api/me', '/api/no/such']) {
+      expect((await apiClient().get(path)).headers.get('x-powered-by'), path).toBeNull()
+    }
+  })
 })
