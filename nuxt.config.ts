@@ -75,10 +75,12 @@ export default defineNuxtConfig({
     // with this many routes TypeScript overflows (TS2321, "excessive stack depth"). Calls name
     // their answer type instead (`$fetch<PieceDetail>(…)`, `useFetch<…>`), so the route table
     // is left out of the generated types.
-    // A database that is not answering becomes a 503 before Nuxt's and Nitro's own error
-    // handlers see it (Nitro tries the handlers in order until one answers).
+    // Errors get their standard status text, and a database that is not answering becomes a
+    // 503, before Nuxt's and Nitro's own error handlers see them (Nitro tries the handlers in
+    // order until one answers).
     'nitro:config': (config) => {
-      config.errorHandler = [fileURLToPath(new URL('./server/error/databaseDown.ts', import.meta.url)), ...[config.errorHandler ?? []].flat()]
+      const ours = ['statusText', 'databaseDown'].map(name => fileURLToPath(new URL(`./server/error/${name}.ts`, import.meta.url)))
+      config.errorHandler = [...ours, ...[config.errorHandler ?? []].flat()]
     },
     'nitro:init': (nitro) => {
       nitro.hooks.hook('types:extend', (types) => { types.routes = {} })

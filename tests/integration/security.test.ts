@@ -233,4 +233,12 @@ describe('response headers', () => {
       expect((await apiClient().get(path)).headers.get('x-powered-by'), path).toBeNull()
     }
   })
+
+  it('sends the standard status text with an error: 404 Not Found, 401 Unauthorized, not "Server Error"', async () => {
+    const baseUrl = inject('baseUrl')
+    for (const [path, status, text] of [['/api/no/such', 404, 'Not Found'], ['/_nuxt/no-such-chunk.js', 404, 'Not Found'], ['/api/me', 401, 'Unauthorized']] as const) {
+      const res = await rawRequest(baseUrl, path)
+      expect([res.status, res.statusText], path).toEqual([status, text])
+    }
+  })
 })
