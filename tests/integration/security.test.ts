@@ -1,4 +1,4 @@
-import { randomUUID } from 'node:crypto'
+import { createHash, randomUUID } from 'node:crypto'
 import * as iron from 'iron-webcrypto'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { apiClient, signedIn, uniqueEmail } from '../support/api'
@@ -217,7 +217,25 @@ describe('a server without a proxy (NUXT_TRUST_PROXY=false), with NUXT_ALLOWED_H
   })
 })
 
+/** The executable inline scripts of a page (not `src=` ones, not JSON data blocks). */
+function inlineScripts(html: string) {
+  return [...html.matchAll(/<script([^>]*)>([\s\S]*?)<\/script>/gi)]
+    .filter(([, attributes]) => !/(?:^|\s)src\s*=/i.test(attributes!) && !/\btype\s*=\s*"?application\/(ld\+)?json/i.test(attributes!))
+    .map(([, , text]) => text!)
+}
+
 describe('response headers', () => {
+  it('allows inline scripts by their hash only: no \'unsafe-inline\' for scripts, each inline script of the shell and of a page listed', async () => {
+    for (const path of ['/', '/index.html', '/login', '/projects/12']) {
+      const res = await rawRequest(inject('baseUrl'), path)
+      const scriptSrc = (res.headers['content-security-policy'] as string).split(';').map(d => d.trim()).find(d => d.startsWith('script-src '))!
+      expect(scriptSrc, path).not.toContain('unsafe-inline')
+      const scripts = inlineScripts(res.body)
+      expect(scripts.length, path).toBeGreaterThanOrEqual(2) // the theme before first paint, Nuxt's config
+      for (const text of scripts) expect(scriptSrc, `${path}: ${text.slice(0, 60)}`).toContain(`'sha256-${createHash('sha256').update(text).digest('base64')}'`)
+    }
+  })
+
   it('marks every API answer as not to be stored, signed in or not, while scripts keep their long cache', async () => {
     const knitter = await signedIn('knitter@floatwise.test', 'floatwise-demo')
     for (const [client, path] of [[knitter, '/api/me'], [knitter, '/api/projects'], [knitter, '/api/yarns'], [apiClient(), '/api/me'], [apiClient(), '/api/health']] as const) {
