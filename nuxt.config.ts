@@ -1,7 +1,7 @@
 import { fileURLToPath } from 'node:url'
 import { bundlePictureWorker } from './picture-worker.build'
 import { pwa } from './pwa.config'
-import { securityHeaders } from './security-headers'
+import { apiAnswerHeaders, securityHeaders } from './security-headers'
 
 // srcDir is the project root: pages/, components/ … stand beside server/ and shared/.
 export default defineNuxtConfig({
@@ -51,6 +51,9 @@ export default defineNuxtConfig({
     // Only the server needs these; the app shell is prerendered, so public values would freeze at build time.
     appUrl: 'http://localhost:3000',
     trustProxy: false,
+    // Host names answered besides the app URL's, localhost and IP addresses (NUXT_ALLOWED_HOSTS,
+    // comma-separated): every other Host gets 421 (server/utils/ownHosts.ts).
+    allowedHosts: '',
     // Where the original motif pictures are kept (NUXT_PICTURES_DIR); empty = the `pictures`
     // storage mount below. Any unstorage driver can replace that mount (see README).
     picturesDir: '',
@@ -69,16 +72,19 @@ export default defineNuxtConfig({
   },
   routeRules: {
     '/**': { headers: securityHeaders },
+    '/api/**': { headers: apiAnswerHeaders },
   },
   hooks: {
     // Nitro types `$fetch('/api/…')` by matching the path against every route at compile time;
     // with this many routes TypeScript overflows (TS2321, "excessive stack depth"). Calls name
     // their answer type instead (`$fetch<PieceDetail>(…)`, `useFetch<…>`), so the route table
     // is left out of the generated types.
-    // A database that is not answering becomes a 503 before Nuxt's and Nitro's own error
-    // handlers see it (Nitro tries the handlers in order until one answers).
+    // Errors get their standard status text, and a database that is not answering becomes a
+    // 503, before Nuxt's and Nitro's own error handlers see them (Nitro tries the handlers in
+    // order until one answers).
     'nitro:config': (config) => {
-      config.errorHandler = [fileURLToPath(new URL('./server/error/databaseDown.ts', import.meta.url)), ...[config.errorHandler ?? []].flat()]
+      const ours = ['statusText', 'databaseDown'].map(name => fileURLToPath(new URL(`./server/error/${name}.ts`, import.meta.url)))
+      config.errorHandler = [...ours, ...[config.errorHandler ?? []].flat()]
     },
     'nitro:init': (nitro) => {
       nitro.hooks.hook('types:extend', (types) => { types.routes = {} })

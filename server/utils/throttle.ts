@@ -11,7 +11,7 @@ const addressColumnLength = 64
 export function clientAddress(event: H3Event) {
   // X-Forwarded-For is believed only behind a proxy we run (NUXT_TRUST_PROXY=true), and only its
   // last entry, the one that proxy added: anything before it is whatever the client sent.
-  if (String(useRuntimeConfig().trustProxy) === 'true') {
+  if (trustsProxy()) {
     const forwarded = getRequestHeader(event, 'x-forwarded-for')?.split(',').pop()?.trim()
     if (forwarded && isIP(forwarded) && forwarded.length <= addressColumnLength) return forwarded
   }

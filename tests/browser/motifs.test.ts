@@ -1,10 +1,9 @@
 import { readFileSync } from 'node:fs'
-import { createRequire } from 'node:module'
 import { PNG } from 'pngjs'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser, BrowserContext, Page } from 'playwright-core'
 import { signedIn } from '../support/api'
-import { launchBrowser, newTabletContext, screenshot, signIn, watchForErrors } from '../support/browser'
+import { addAxe, launchBrowser, newTabletContext, screenshot, signIn, watchForErrors } from '../support/browser'
 
 // The motif library and editor as designers and knitters use them on a tablet. Every test
 // makes the motifs it changes, with a name of its own, so tests never depend on each other.
@@ -58,7 +57,7 @@ async function waitForSaved(page: Page) {
 }
 
 async function axeSerious(page: Page) {
-  await page.addScriptTag({ path: createRequire(import.meta.url).resolve('axe-core/axe.min.js') })
+  await addAxe(page)
   const result = await page.evaluate(async () => (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe.run())
   return result.violations.filter(v => v.impact === 'serious' || v.impact === 'critical').map(v => `${v.id}: ${v.nodes.map(n => n.target.join(' ')).join(', ')}`)
 }

@@ -1,7 +1,6 @@
-import { createRequire } from 'node:module'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser, Page } from 'playwright-core'
-import { launchBrowser, newTabletContext, screenshot, screenshotDir, signIn, watchForErrors } from '../support/browser'
+import { addAxe, launchBrowser, newTabletContext, screenshot, screenshotDir, signIn, watchForErrors } from '../support/browser'
 
 // The planner as a designer uses it (stock, a plan from a target size, shaping, publish) and
 // as a knitter (a project from the published plan, then the knit view of its first piece).
@@ -20,7 +19,7 @@ async function signedInPage(email: string, orientation: 'landscape' | 'portrait'
 }
 
 async function seriousAxeViolations(page: Page) {
-  await page.addScriptTag({ path: createRequire(import.meta.url).resolve('axe-core/axe.min.js') })
+  await addAxe(page)
   const result = await page.evaluate(async () => (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe.run())
   return result.violations.filter(v => v.impact === 'serious' || v.impact === 'critical').map(v => `${v.id} (${v.nodes.map(n => n.target.join(' ')).join(', ')})`)
 }

@@ -1,7 +1,6 @@
-import { createRequire } from 'node:module'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser } from 'playwright-core'
-import { launchBrowser, newTabletContext, screenshot, signIn } from '../support/browser'
+import { addAxe, launchBrowser, newTabletContext, screenshot, signIn } from '../support/browser'
 
 let browser: Browser
 beforeAll(async () => { browser = await launchBrowser() })
@@ -53,7 +52,7 @@ describe('projects', () => {
     await page.click('[data-test="create-project"]')
     await page.waitForSelector('[data-test="form-message"]')
     expect(await page.textContent('[data-test="new-project-form"]')).toMatch(/name: is required|is required/)
-    await page.addScriptTag({ path: createRequire(import.meta.url).resolve('axe-core/axe.min.js') })
+    await addAxe(page)
     const result = await page.evaluate(async () => (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string }[] }> } }).axe.run())
     expect(result.violations.filter(v => v.impact === 'serious' || v.impact === 'critical').map(v => v.id)).toEqual([])
     await context.close()

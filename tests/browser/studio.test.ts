@@ -1,7 +1,6 @@
-import { createRequire } from 'node:module'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser } from 'playwright-core'
-import { launchBrowser, newTabletContext, screenshot, signIn } from '../support/browser'
+import { addAxe, launchBrowser, newTabletContext, screenshot, signIn } from '../support/browser'
 
 let browser: Browser
 beforeAll(async () => { browser = await launchBrowser() })
@@ -19,7 +18,7 @@ describe('the studio page', () => {
     expect(await page.textContent('[data-test="production"]')).toContain('Marsh wave jumper')
     expect(await page.textContent('[data-test="member-list"]')).toContain('Tamsin Roe')
     await screenshot(page, 'studio-owner-landscape')
-    await page.addScriptTag({ path: createRequire(import.meta.url).resolve('axe-core/axe.min.js') })
+    await addAxe(page)
     const result = await page.evaluate(async () => (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string }[] }> } }).axe.run())
     expect(result.violations.filter(v => v.impact === 'serious' || v.impact === 'critical').map(v => v.id)).toEqual([])
     await context.close()

@@ -1,4 +1,5 @@
-import { mkdirSync } from 'node:fs'
+import { mkdirSync, readFileSync } from 'node:fs'
+import { createRequire } from 'node:module'
 import { join } from 'node:path'
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core'
 import { inject } from 'vitest'
@@ -50,4 +51,15 @@ export function watchForErrors(context: BrowserContext) {
   context.on('weberror', e => errors.push(`page error: ${e.error().message}`))
   context.on('console', (m) => { if (m.type() === 'error') errors.push(`console: ${m.text()}`) })
   return errors
+}
+
+const axeSource = readFileSync(createRequire(import.meta.url).resolve('axe-core/axe.min.js'), 'utf8')
+
+/**
+ * Puts axe-core (window.axe) into the page. Evaluated through DevTools rather than added as
+ * a <script> tag: the page's policy runs no inline script without its hash (security-headers.ts),
+ * and a test must not loosen the policy it runs under.
+ */
+export async function addAxe(page: Page) {
+  await page.evaluate(`${axeSource}\n;void 0`)
 }
