@@ -1,8 +1,7 @@
-import { createRequire } from 'node:module'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser, BrowserContext, Page } from 'playwright-core'
 import { apiClient } from '../support/api'
-import { launchBrowser, newTabletContext, screenshot, signIn } from '../support/browser'
+import { addAxe, launchBrowser, newTabletContext, screenshot, signIn } from '../support/browser'
 import { closeTestDb, fixturePassword, makeProject, makeStudio } from '../support/db'
 
 // Sign-out on a shared tablet: steps not yet sent are lost only after a clear warning, and
@@ -37,7 +36,7 @@ async function serverRows(email: string, pieceId: number) {
 }
 
 async function seriousAxeViolations(page: Page) {
-  await page.addScriptTag({ path: createRequire(import.meta.url).resolve('axe-core/axe.min.js') })
+  await addAxe(page) // the page's CSP refuses an injected script tag
   const result = await page.evaluate(async () => (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string }[] }> } }).axe.run())
   return result.violations.filter(v => v.impact === 'serious' || v.impact === 'critical').map(v => v.id)
 }
