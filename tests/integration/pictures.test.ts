@@ -73,6 +73,8 @@ describe('from a picture to a motif', () => {
     expect(back.status).toBe(200)
     expect(back.headers.get('content-type')).toBe('image/png')
     expect(back.headers.get('x-content-type-options')).toBe('nosniff')
+    // Not kept in the browser's cache, where the next person on a shared tablet could open it.
+    expect(back.headers.get('cache-control')).toBe('no-store')
     expect(back.bytes.equals(png)).toBe(true)
     expect(readFileSync(join(picturesDir, String(made.body.id))).equals(png)).toBe(true)
 

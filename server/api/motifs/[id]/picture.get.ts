@@ -12,7 +12,8 @@ export default defineEventHandler(async (event) => {
     'content-length': bytes.length,
     'x-content-type-options': 'nosniff',
     'content-disposition': 'inline',
-    'cache-control': 'private, max-age=300',
+    // Like every personal answer: a shared tablet's browser cache must not keep it after sign-out.
+    'cache-control': 'no-store',
   })
   return bytes
 })
