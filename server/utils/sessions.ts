@@ -1,4 +1,4 @@
-import { createHash, randomBytes } from 'node:crypto'
+import { randomBytes } from 'node:crypto'
 import type { H3Event } from 'h3'
 import { Op, type Transaction } from 'sequelize'
 import { UserSession, type User } from '../db/models'
@@ -13,7 +13,8 @@ const touchMs = 60_000
 interface Known { userId: number; live: boolean; checkedAt: number; touchedAt: number }
 const known = new Map<string, Known>()
 
-const hashSid = (sid: string) => createHash('sha256').update(sid).digest('hex')
+// The same sha256 as mailed links' tokens (tokens.ts): only the hash is stored.
+const hashSid = hashLinkToken
 
 /** A short label of the device, from its user agent, for the account page's list. */
 export function deviceLabel(userAgent: string | undefined) {

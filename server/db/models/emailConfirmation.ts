@@ -1,4 +1,5 @@
-import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize'
+import { Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize'
+import { linkTokenColumns } from './linkToken'
 
 export class EmailConfirmation extends Model<InferAttributes<EmailConfirmation>, InferCreationAttributes<EmailConfirmation>> {
   declare id: CreationOptional<number>
@@ -10,14 +11,6 @@ export class EmailConfirmation extends Model<InferAttributes<EmailConfirmation>,
   declare updatedAt: CreationOptional<Date>
 
   static initModel(sequelize: Sequelize) {
-    EmailConfirmation.init({
-      id: { type: DataTypes.INTEGER.UNSIGNED, autoIncrement: true, primaryKey: true },
-      userId: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false },
-      tokenHash: { type: DataTypes.CHAR(64), allowNull: false, unique: true },
-      expiresAt: { type: DataTypes.DATE(3), allowNull: false },
-      usedAt: { type: DataTypes.DATE(3), allowNull: true },
-      createdAt: DataTypes.DATE(3),
-      updatedAt: DataTypes.DATE(3),
-    }, { sequelize, tableName: 'email_confirmations' })
+    EmailConfirmation.init(linkTokenColumns, { sequelize, tableName: 'email_confirmations' })
   }
 }
