@@ -9,7 +9,7 @@ const fromRoot = (path: string) => fileURLToPath(new URL(path, import.meta.url))
 const workerEntry = fromRoot('./server/pictures/decodeWorker.ts')
 // The app's modules the worker imports too. Rollup would put them in Nitro's own chunk (as
 // dependencies of the app), and a worker importing that chunk would start the whole app.
-const sharedWithWorker = [fromRoot('./shared/knitting/'), fromRoot('./shared/motif/limits.ts')]
+const sharedWithWorker = [fromRoot('./shared/engine/'), fromRoot('./shared/motif/limits.ts')]
 
 export function bundlePictureWorker(nitro: Nitro) {
   // The entry only answers its parent; Nitro's tree-shaking must not drop that.

@@ -1,8 +1,9 @@
 import { recordStep, resolveConflict, savePiece, StepError, type CachedPiece, type LocalProgress } from '~~/service'
-import { compilePieceTimeline } from '~~/shared/knit/timeline'
-import { cuesForStep, knitPosition } from '~~/shared/knit/position'
-import { describeDuration, msPerRow, type PaceStep } from '~~/shared/knit/pace'
-import type { PieceDetail, PieceTimeline } from '~~/shared/types/knit'
+import { compilePieceTimeline } from '#shared/piece/timeline'
+import { cuesForStep, knitPosition } from '#shared/piece/position'
+import { describeDuration, msPerRow, type PaceStep } from '#shared/piece/pace'
+import type { PieceDetail } from '#shared/types/knit'
+import type { PieceTimeline } from '#shared/piece/types'
 
 /**
  * One piece at the machine: its timeline, the local place (IndexedDB, live), and the steps.

@@ -1,4 +1,4 @@
-import type { MotifDetail } from '~~/shared/types/motif'
+import type { MotifDetail } from '#shared/types/motif'
 
 export type MotifSaveState = 'saved' | 'saving' | 'unsaved' | 'offline' | 'error'
 

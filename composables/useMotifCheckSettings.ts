@@ -1,5 +1,5 @@
 import type { InjectionKey, Ref } from 'vue'
-import { DEFAULT_FLOAT_LIMIT } from '~~/shared/knitting'
+import { DEFAULT_FLOAT_LIMIT } from '#shared/engine'
 
 /** How the motif is checked and previewed: kept on the device, the same for every motif. */
 export interface MotifCheckSettings {

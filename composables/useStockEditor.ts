@@ -5,7 +5,7 @@ import type { Ref } from 'vue'
  * (`undefined` none, `null` a new one), its draft, the server's message per field.
  */
 export function useStockEditor<T extends { id: number }, D>(
-  stock: ReturnType<typeof usePlanStock<T>>, blank: () => D, fromItem: (item: T) => D,
+  stock: ReturnType<typeof useStock<T>>, blank: () => D, fromItem: (item: T) => D,
 ) {
   const { form } = stock
   const draft = ref(blank()) as Ref<D>

@@ -2,7 +2,7 @@
 // They mirror the server contract field for field so a row event is sent exactly as stored.
 
 // The server's shapes are the contract: one definition in shared/, used on both sides.
-import type { PieceDetail, SyncConflict } from '../shared/types/knit'
+import type { PieceDetail, SyncConflict } from '#shared/types/knit'
 
 export type { PieceDetail, SyncConflict }
 

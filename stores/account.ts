@@ -1,5 +1,5 @@
 import { defineStore, acceptHMRUpdate } from 'pinia'
-import type { StudioSummary } from '~~/shared/types/studio'
+import type { StudioSummary } from '#shared/types/studio'
 
 interface Me { user: { id: number; email: string; name: string }; studios: StudioSummary[] }
 

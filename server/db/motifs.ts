@@ -1,5 +1,5 @@
-import { analyseFloats, chartFromRows, type Chart } from '../../shared/knitting'
-import type { MotifFloatReport } from '../../shared/types/motif'
+import { analyseFloats, chartFromRows, type Chart } from '#shared/engine'
+import type { MotifFloatReport } from '#shared/types/motif'
 import type { Motif } from './models'
 
 // A motif's stored form. Plain module (no Nitro auto-imports) so the API, the demo seed and

@@ -1,6 +1,7 @@
 import type { Transaction } from 'sequelize'
-import { compilePieceTimeline } from '../../shared/knit/timeline'
-import type { PieceTimeline, ProjectPlanSnapshot, ProjectYarn } from '../../shared/types/knit'
+import { compilePieceTimeline } from '#shared/piece/timeline'
+import type { ProjectPlanSnapshot, ProjectYarn } from '#shared/types/knit'
+import type { PieceTimeline } from '#shared/piece/types'
 import { Piece, Project } from './models'
 
 // Writing a project with its pieces. Plain module (no Nitro auto-imports) so the API, the

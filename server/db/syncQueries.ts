@@ -1,5 +1,6 @@
 import { QueryTypes, type Sequelize, type Transaction } from 'sequelize'
-import type { ProjectStatus, RowEventKind, RowEventOutcome } from '../../shared/types/knit'
+import type { ProjectStatus } from '#shared/types/knit'
+import type { RowEventKind, RowEventOutcome } from '#shared/piece/types'
 
 // The SQL of POST /api/sync. The route runs for every tap on every tablet, so it skips model
 // instances: plain parameterised statements, one round trip each, inside the caller's transaction.

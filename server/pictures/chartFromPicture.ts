@@ -1,9 +1,9 @@
 import { decode as decodeWebp } from '@cwasm/webp'
 import jpeg from 'jpeg-js'
 import { PNG } from 'pngjs'
-import { areaAverage, chartToRows, imageToChart, otsuThreshold } from '../../shared/knitting'
-import type { Chart } from '../../shared/knitting'
-import { PICTURE_UPLOAD } from '../../shared/motif/limits'
+import { areaAverage, chartToRows, imageToChart, otsuThreshold } from '#shared/engine'
+import type { Chart } from '#shared/engine'
+import { PICTURE_UPLOAD } from '#shared/motif/limits'
 
 // Decoding a picture and turning it into a chart: the costly part of a picture upload, run
 // in a worker thread (decodeWorker.ts), so plain code with no h3 or Nitro in it.

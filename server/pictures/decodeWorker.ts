@@ -1,5 +1,5 @@
 import { parentPort } from 'node:worker_threads'
-import { KnittingInputError } from '../../shared/knitting'
+import { KnittingInputError } from '#shared/engine'
 import { chartFromPicture, UnreadablePictureError } from './chartFromPicture'
 import type { PictureChartJob, PictureChartResult } from './chartFromPicture'
 

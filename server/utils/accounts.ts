@@ -1,7 +1,7 @@
 import type { Transaction } from 'sequelize'
 import { Membership, Studio, User } from '../db/models'
-import type { StudioSummary } from '../../shared/types/studio'
-import { nameWithSuffix } from '../../shared/text/nameWithSuffix'
+import type { StudioSummary } from '#shared/types/studio'
+import { nameWithSuffix } from '#shared/text/nameWithSuffix'
 
 /** A new person with their personal studio, which they own. */
 export async function createAccount(input: { email: string; name: string; password: string; confirmed?: boolean }, transaction: Transaction) {

@@ -1,6 +1,6 @@
 import type { H3Event } from 'h3'
 import { Invitation, Studio } from '../db/models'
-import type { StudioRole } from '../../shared/types/studio'
+import type { StudioRole } from '#shared/types/studio'
 
 const lifetimeMs = 7 * 24 * 60 * 60_000
 

@@ -1,5 +1,5 @@
 import { Membership } from '../db/models'
-import type { StudioRole } from '../../shared/types/studio'
+import type { StudioRole } from '#shared/types/studio'
 
 /**
  * Changes run in a transaction that locks the studio's owner rows, so two owners

@@ -1,6 +1,6 @@
 import { Op } from 'sequelize'
-import { describeDuration, msPerRow } from '../../shared/knit/pace'
-import type { ProductionItem } from '../../shared/types/plan'
+import { describeDuration, msPerRow } from '#shared/piece/pace'
+import type { ProductionItem } from '#shared/types/plan'
 import { Piece, Project, RowEvent, User } from '../db/models'
 
 // The studio's projects not yet finished, most recently knitted first, with a finish estimate

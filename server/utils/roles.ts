@@ -1,6 +1,6 @@
 import type { H3Event } from 'h3'
 import { Membership } from '../db/models'
-import { roleRank, type StudioRole } from '../../shared/types/studio'
+import { roleRank, type StudioRole } from '#shared/types/studio'
 
 /** The signed-in person, or a 401. */
 export async function requireUser(event: H3Event) {

@@ -1,6 +1,7 @@
 import { UniqueConstraintError, type Transaction } from 'sequelize'
-import type { ProjectStatus, SyncAnswer, SyncPieceState } from '../../shared/types/knit'
-import type { RowEventInput, SyncBody } from '../../shared/validation/knit'
+import { applyRowEvent } from '#shared/piece/rowEvent'
+import type { ProjectStatus, SyncAnswer, SyncPieceState } from '#shared/types/knit'
+import type { RowEventInput, SyncBody } from '#shared/validation/knit'
 import {
   countOtherOpenPieces, insertRowEvents, knittablePieces, lockPiece, lockProjectStatus, pieceStates, storedAndLatest,
   updatePiecePlace, updateProject, type KnittablePiece, type LatestOfDevice, type LockedPiece, type NewRowEvent, type StoredEventOwner,
@@ -8,13 +9,10 @@ import {
 
 // POST /api/sync: a device's row events, applied in order, each exactly once.
 //
-// An event moves a piece only when it builds on the piece's current version and, unless it is
-// a jump, starts from the piece's place at that version; otherwise it is kept in the log as a
-// 'conflict' and the piece stays where it is. A refused step is logged, not sent back as
-// rejected: the device drops rejected events, and this one is a tap the knitter made. Once a device is in
-// conflict on a piece, only a 'jump' (the knitter's choice of place) on the current version
-// moves it again: the device's other offline steps were built on a place that lost, and
-// their version numbers can coincide with the server's without meaning the same rows.
+// Whether an event moves the piece is applyRowEvent's rule (#shared/piece/rowEvent); an event
+// that does not is kept in the log as a 'conflict' and the piece stays where it is. A refused
+// step is logged, not sent back as rejected: the device drops rejected events, and this one is
+// a tap the knitter made.
 
 type Outcome = 'applied' | 'conflict' | 'replay' | 'foreign'
 
@@ -92,19 +90,16 @@ async function storeRowEvents(userId: number, deviceId: string, target: Knittabl
         if (existing) return sameEvent(existing, userId, e) ? 'replay' : 'foreign'
         if (seen.has(e.id)) return 'replay' // the same new event twice in one batch
         seen.add(e.id)
-        // A jump's `from` is the device's own place (the knitter's choice may leave it); a step's
-        // must be the place its version stands for, or it was taken from a row the piece is not at.
-        const buildsOnPlace = e.kind === 'jump' || e.from === place
-        const applies = e.version === piece.version && buildsOnPlace && (last?.outcome !== 'conflict' || e.kind === 'jump')
-        const outcome = applies ? 'applied' : 'conflict'
+        const decision = applyRowEvent({ completedRows: place, version: piece.version }, e, last?.outcome === 'conflict')
+        const outcome = decision.outcome
         rows.push({
           id: e.id, pieceId: target.id, userId, deviceId, kind: e.kind, fromRows: e.from, toRows: e.to, version: e.version,
           at: new Date(e.at), receivedAt: now, outcome,
         })
         last = { outcome, toRows: e.to }
-        if (!applies) return 'conflict'
-        piece.version += 1
-        place = e.to
+        if (outcome === 'conflict') return 'conflict'
+        piece.version = decision.place.version
+        place = decision.place.completedRows
         moved = { to: e.to, at: now }
         return 'applied'
       })

@@ -1,6 +1,6 @@
 import type { H3Event } from 'h3'
 import type { z } from 'zod'
-import { describeIssues } from '../../shared/validation/describe'
+import { describeIssues } from '#shared/validation/describe'
 
 /**
  * Runs a zod schema; a failure is a 400 whose message names each bad field and whose

@@ -5,7 +5,7 @@
 // of a file. Cells are written '0' (main colour) and '1' (contrast colour).
 
 import { z } from 'zod'
-import type { MotifFile } from '../types/motif'
+import type { MotifFile } from '#shared/types/motif'
 import { quotedCsvCell, readQuotedCsvCell, unguardCsvCell } from './csvCell'
 
 export const MOTIF_FILE_FORMAT = 'floatwise-motif'

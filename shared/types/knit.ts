@@ -1,38 +1,10 @@
-// Projects, pieces and the row timeline a knitter follows at the machine; the shapes the
-// API answers with. Times are ISO strings (UTC) as they arrive in JSON.
+// Projects, pieces and sync: the shapes the API answers with. Times are ISO strings (UTC)
+// as they arrive in JSON. A piece's rows themselves are described in #shared/piece/types.
 
-/** A yarn slot letter: 'A' is the main colour, then 'B', 'C' … */
-export type YarnSlot = string
-
-/** Each slot is shown with a symbol as well as its colour (never colour alone), in slot order. */
-export const slotSymbols = ['●', '▲', '■', '◆', '★', '✚'] as const
-
-export interface SlotYarn { slot: YarnSlot; name: string; hex: string; symbol: string }
-
-export type PieceSection =
-  | { kind: 'plain'; label: string; rows: number; yarn: YarnSlot; note?: string }
-  | {
-    kind: 'motif'; label: string; motifName: string
-    /** chartToRows format ('.' main, 'x' contrast); rows[0] is the first row knitted. */
-    chart: string[]
-    chartRows: number; main: YarnSlot; contrast: YarnSlot; note?: string
-  }
-
-/** Everything needed to compile and show one piece's rows; frozen when the project is made. */
-export interface PieceTimeline {
-  technique: 'together' | 'colour-by-colour'
-  passesPerColour: number
-  needles: number
-  sections: PieceSection[]
-  yarns: SlotYarn[]
-}
+import type { PieceTimeline, SlotYarn } from '#shared/piece/types'
 
 export const projectStatuses = ['planned', 'knitting', 'finished'] as const
 export type ProjectStatus = typeof projectStatuses[number]
-
-export const rowEventKinds = ['advance', 'back', 'jump'] as const
-export type RowEventKind = typeof rowEventKinds[number]
-export type RowEventOutcome = 'applied' | 'conflict' | 'rejected'
 
 /** The yarn chosen for a slot, kept on the project (yarnId null when it is not from stock). */
 export interface ProjectYarn extends SlotYarn { yarnId: number | null }

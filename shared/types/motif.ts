@@ -1,4 +1,4 @@
-import type { FloatVerdict } from '../knitting'
+import type { FloatVerdict } from '#shared/engine'
 
 /** What a stored motif keeps about its floats, recomputed whenever its cells change. */
 export interface MotifFloatReport {

@@ -1,86 +1,10 @@
-// The planner: machines, yarn stock, swatches and plans, as the API answers with them.
+// Plans, as the API answers with them (machines, yarn and swatches are in ./stock).
 // Times are ISO strings (UTC). Lengths carry their unit; engine numbers are unrounded
 // unless named as counts (needles, rows, stitches).
 
-import type { Distinguishability } from '../knitting'
-import type { SectionShaping } from '../knit/piecePicture'
-import type { PieceTimeline } from './knit'
-import type { Technique, YarnListItem } from './studio'
-
-export type LengthUnit = 'cm' | 'in'
-
-/** GET/POST /api/machines, PATCH /api/machines/:id. */
-export interface MachineItem {
-  id: number
-  studioId: number
-  name: string
-  needlePitchMm: number
-  /** Needles on the bed. */
-  needles: number
-  /** Stitches in one pattern repeat the machine can select (punch card or electronic width). */
-  patterningWidth: number
-  technique: Technique
-  passesPerColour: number
-  notes: string
-  createdAt: string
-  updatedAt: string
-}
-
-/** GET /api/yarns (list; keeps YarnListItem's fields), POST /api/yarns, PATCH /api/yarns/:id. */
-export interface YarnItem extends YarnListItem {
-  studioId: number
-  /** Craft Yarn Council name of weightCategory (e.g. "Fine"). */
-  weightName: string
-  notes: string
-  createdAt: string
-  updatedAt: string
-}
-
-/** GET /api/yarns: a yarn with what the studio's published plans call for. */
-export interface YarnStockItem extends YarnItem {
-  /** Grams the published plans need of it (their yarn estimates summed), and how many plans. */
-  plannedGrams: number
-  plannedIn: number
-  /** Fewer grams on hand than the published plans need. */
-  low: boolean
-}
-
-/** The engine's numbers for a swatch. */
-export interface SwatchGauge {
-  stitchesPer10cm: number
-  rowsPer10cm: number
-  stitchesPer4in: number
-  rowsPer4in: number
-  stitchWidthMm: number
-  rowHeightMm: number
-  /** yarnWeightCategory(stitchesPer4in); null past 40 stitches per 4 in. */
-  weightCategory: { category: number; name: string; alsoFits: number[] } | null
-}
-
-/** GET/POST /api/swatches, GET/PATCH /api/swatches/:id. */
-export interface SwatchItem {
-  id: number
-  studioId: number
-  machineId: number | null
-  /** As the knitter typed it: a machine setting is free text. */
-  stitchSize: string
-  mainYarnId: number | null
-  contrastYarnId: number | null
-  /** Stitches and rows counted … */
-  stitches: number
-  rows: number
-  /** … over this measured width and height, in `unit`. */
-  width: number
-  height: number
-  unit: LengthUnit
-  /** Weight of the whole swatch (needed for the yarn estimate). */
-  grams: number | null
-  washed: boolean
-  notes: string
-  gauge: SwatchGauge
-  createdAt: string
-  updatedAt: string
-}
+import type { Distinguishability, SectionShaping } from '#shared/engine'
+import type { PieceTimeline } from '#shared/piece/types'
+import type { LengthUnit } from './stock'
 
 /** A plan names its yarns by slot letter: 'A' is the main colour, then 'B', 'C' … */
 export interface PlanYarnSlot { slot: string; yarnId: number }

@@ -1,6 +1,6 @@
 import { z } from 'zod'
-import { studioRoles } from '../types/studio'
-import { NAME_MAX } from '../text/nameWithSuffix'
+import { studioRoles } from '#shared/types/studio'
+import { NAME_MAX } from '#shared/text/nameWithSuffix'
 
 export const emailSchema = z.string().trim().toLowerCase().max(254).pipe(z.email('must be an e-mail address'))
 export const passwordSchema = z.string()

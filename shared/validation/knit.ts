@@ -1,6 +1,6 @@
 import { z } from 'zod'
-import { MAX_PLAN_ROWS } from '../knitting/plan'
-import { rowEventKinds } from '../types/knit'
+import { MAX_PLAN_ROWS } from '#shared/engine/rows'
+import { rowEventKinds } from '#shared/piece/types'
 import { idParam, nameSchema } from './auth'
 
 const id = z.number('must be a number').int('must be a whole number').positive('must be a positive id').max(2 ** 31)

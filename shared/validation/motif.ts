@@ -1,10 +1,10 @@
 import { z } from 'zod'
-import { chartFromRows, KnittingInputError } from '../knitting'
+import { chartFromRows, KnittingInputError } from '#shared/engine'
 import { idParam, nameSchema } from './auth'
 
-import { MAX_IMPORT_CHARS, MOTIF_LIMITS, motifSorts } from '../motif/limits'
+import { MAX_IMPORT_CHARS, MOTIF_LIMITS, motifSorts } from '#shared/motif/limits'
 
-export { MAX_IMPORT_CHARS, MOTIF_LIMITS, PICTURE_UPLOAD } from '../motif/limits'
+export { MAX_IMPORT_CHARS, MOTIF_LIMITS, PICTURE_UPLOAD } from '#shared/motif/limits'
 
 const count = (min: number, max: number) => z.coerce.number('must be a number').int('must be a whole number')
   .min(min, `must be at least ${min}`).max(max, `must be at most ${max}`)
@@ -36,7 +36,7 @@ export const chartRows = z.array(z.string('must be text'), 'must be a list of ro
 
 export const motifIdParams = z.object({ id: idParam })
 
-export { motifSorts, type MotifSort } from '../motif/limits'
+export { motifSorts, type MotifSort } from '#shared/motif/limits'
 
 /** `GET /api/motifs`: a page of a studio's library. `longest` sorts by the longer float of either yarn. */
 export const motifListQuery = z.object({

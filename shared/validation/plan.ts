@@ -1,6 +1,6 @@
 import { z } from 'zod'
-import { MAX_PLAN_ROWS } from '../knitting/plan'
-import { copySuffix, longestPieceName } from '../knit/pieceCopies'
+import { MAX_PLAN_ROWS } from '#shared/engine/rows'
+import { copySuffix, longestPieceName } from '#shared/piece/copies'
 import { nameSchema } from './auth'
 
 // Machines, yarn stock, swatches and plans: bodies of the planner routes. Create bodies

@@ -3,8 +3,8 @@
 // within 10× of a baseline that only reads every knitted cell once.
 
 import { expect, it } from 'vitest'
-import { analyseFloats, chartFromRows, chooseCatchNeedles, compilePlan, estimateYarn } from '../../shared/knitting'
-import type { Chart } from '../../shared/knitting'
+import { analyseFloats, chartFromRows, chooseCatchNeedles, compilePlan, estimateYarn } from '#shared/engine'
+import type { Chart } from '#shared/engine'
 
 const NEEDLES = 200
 const ROWS = 2000

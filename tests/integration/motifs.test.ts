@@ -5,7 +5,7 @@ import { closeTestDb, fixturePassword, makeStudio } from '../support/db'
 import { readCsv } from '../support/rfc4180'
 import { Motif } from '../../server/db/models'
 import { motifRecord } from '../../server/db/motifs'
-import type { MotifDetail, MotifListItem, MotifPage } from '../../shared/types/motif'
+import type { MotifDetail, MotifListItem, MotifPage } from '#shared/types/motif'
 
 let s: Awaited<ReturnType<typeof makeStudio>>
 let knitter: ApiClient

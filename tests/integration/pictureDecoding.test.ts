@@ -3,7 +3,7 @@ import { apiClient, signedIn, type ApiClient } from '../support/api'
 import { startAppServer } from '../support/appServer'
 import { closeTestDb, fixturePassword, makeStudio } from '../support/db'
 import { chartPicture, pictureForm, pngBomb, webpBomb } from '../support/pictures'
-import type { PicturePreview } from '../../shared/types/motif'
+import type { PicturePreview } from '#shared/types/motif'
 
 // Decompression bombs: tiny files declaring large pictures. Under the caps they are read in a
 // worker thread while the server keeps answering (over the pixel cap they are refused from the

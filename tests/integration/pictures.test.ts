@@ -5,8 +5,8 @@ import { signedIn, type ApiClient } from '../support/api'
 import { closeTestDb, fixturePassword, makeStudio } from '../support/db'
 import { chartPicture, jpegOf, pictureForm, pngBomb, pngOf, webpBomb } from '../support/pictures'
 import { Motif } from '../../server/db/models'
-import { chartToRows, imageToChart, otsuThreshold } from '../../shared/knitting'
-import type { PicturePreview } from '../../shared/types/motif'
+import { chartToRows, imageToChart, otsuThreshold } from '#shared/engine'
+import type { PicturePreview } from '#shared/types/motif'
 
 // Pictures are made here with pngjs and jpeg-js; the WebP files in tests/fixtures/pictures
 // were made once with cwebp 1.2.4 from the same 4 × 3 chart (10 px cells) as `chartRows`:

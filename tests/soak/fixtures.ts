@@ -3,7 +3,7 @@ import { Scrypt } from '@adonisjs/hash/drivers/scrypt'
 import type { Sequelize } from 'sequelize'
 import { Membership, Piece, Studio, User } from '../../server/db/models'
 import { insertProject } from '../../server/db/projects'
-import { borderedMotifTimeline, slotYarns } from '../../shared/knit/timeline'
+import { borderedMotifTimeline, slotYarns } from '#shared/piece/timeline'
 
 // The soak's studio: knitters with two tablets each. Every tablet knits a piece of its own;
 // every `sharedEvery`-th knitter also has a piece both tablets knit (conflicts on purpose).

@@ -5,8 +5,8 @@ import { createSequelize } from '../../server/db/connection'
 import { initModels, Membership, Motif, Piece, Studio, User, Yarn } from '../../server/db/models'
 import { insertProject } from '../../server/db/projects'
 import { motifRecord } from '../../server/db/motifs'
-import { borderedMotifTimeline, slotYarns } from '../../shared/knit/timeline'
-import type { StudioRole } from '../../shared/types/studio'
+import { borderedMotifTimeline, slotYarns } from '#shared/piece/timeline'
+import type { StudioRole } from '#shared/types/studio'
 import { uniqueEmail } from './api'
 
 let sequelize: Sequelize | undefined

@@ -1,5 +1,5 @@
 import { Op } from 'sequelize'
-import { confirmAddressBody } from '../../../shared/validation/auth'
+import { confirmAddressBody } from '#shared/validation/auth'
 import { EmailConfirmation, User } from '../../db/models'
 
 // Opening the mailed link confirms the address. Whoever made the account may not be the

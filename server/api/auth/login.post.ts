@@ -1,4 +1,4 @@
-import { loginBody } from '../../../shared/validation/auth'
+import { loginBody } from '#shared/validation/auth'
 import { User } from '../../db/models'
 
 // A stand-in hash so an unknown address costs the same time as a wrong password.

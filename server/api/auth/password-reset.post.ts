@@ -1,4 +1,4 @@
-import { resetRequestBody } from '../../../shared/validation/auth'
+import { resetRequestBody } from '#shared/validation/auth'
 
 // Always 202, in the same time: the request is queued as it is and the queue looks the
 // address up after the answer (server/utils/mailQueue.ts), so neither the answer nor its

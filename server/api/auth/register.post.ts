@@ -1,4 +1,4 @@
-import { registerBody } from '../../../shared/validation/auth'
+import { registerBody } from '#shared/validation/auth'
 import { User } from '../../db/models'
 
 // The same 201 answer whether or not the address already has an account, so the route

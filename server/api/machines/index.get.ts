@@ -1,5 +1,5 @@
-import type { MachineItem } from '../../../shared/types/plan'
-import { studioQuery } from '../../../shared/validation/library'
+import type { MachineItem } from '#shared/types/stock'
+import { studioQuery } from '#shared/validation/library'
 import { Machine } from '../../db/models'
 
 // A studio's machines, for every member.

@@ -1,4 +1,4 @@
-import { motifIdParams } from '../../../shared/validation/motif'
+import { motifIdParams } from '#shared/validation/motif'
 
 // Projects made from the motif keep their own copy of the chart (their motif link is cleared).
 export default defineEventHandler(async (event) => {

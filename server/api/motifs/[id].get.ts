@@ -1,4 +1,4 @@
-import { motifIdParams } from '../../../shared/validation/motif'
+import { motifIdParams } from '#shared/validation/motif'
 
 export default defineEventHandler(async (event) => {
   await requireUser(event) // 401 before anything about the request is checked

@@ -1,4 +1,4 @@
-import { motifIdParams, motifPatchBody } from '../../../shared/validation/motif'
+import { motifIdParams, motifPatchBody } from '#shared/validation/motif'
 import { motifRecord } from '../../db/motifs'
 
 // Rename, redraw or (un)publish. New rows bring a new float report.

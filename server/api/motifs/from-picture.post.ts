@@ -1,5 +1,5 @@
-import { studioQuery } from '../../../shared/validation/library'
-import { pictureMotifFields } from '../../../shared/validation/motif'
+import { studioQuery } from '#shared/validation/library'
+import { pictureMotifFields } from '#shared/validation/motif'
 import { chartRecord } from '../../db/motifs'
 
 // A new motif from an uploaded picture (multipart/form-data), keeping the original.

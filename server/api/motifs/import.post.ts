@@ -1,6 +1,6 @@
-import { motifFromCsv, motifFromJson, MotifFileError } from '../../../shared/motif/file'
-import { studioQuery } from '../../../shared/validation/library'
-import { chartRows, motifImportBody } from '../../../shared/validation/motif'
+import { motifFromCsv, motifFromJson, MotifFileError } from '#shared/motif/file'
+import { studioQuery } from '#shared/validation/library'
+import { chartRows, motifImportBody } from '#shared/validation/motif'
 import { Motif } from '../../db/models'
 import { motifRecord } from '../../db/motifs'
 

@@ -1,5 +1,5 @@
-import { studioQuery } from '../../../shared/validation/library'
-import { motifCreateBody } from '../../../shared/validation/motif'
+import { studioQuery } from '#shared/validation/library'
+import { motifCreateBody } from '#shared/validation/motif'
 import { Motif } from '../../db/models'
 import { motifRecord } from '../../db/motifs'
 

@@ -1,6 +1,6 @@
-import type { PicturePreview } from '../../../shared/types/motif'
-import { studioQuery } from '../../../shared/validation/library'
-import { picturePreviewFields } from '../../../shared/validation/motif'
+import type { PicturePreview } from '#shared/types/motif'
+import { studioQuery } from '#shared/validation/library'
+import { picturePreviewFields } from '#shared/validation/motif'
 
 // The chart a picture would make (multipart/form-data, like from-picture); nothing is stored.
 export default defineEventHandler(async (event): Promise<PicturePreview> => {

@@ -1,5 +1,5 @@
-import type { PlanSummary } from '../../../shared/types/plan'
-import { studioQuery } from '../../../shared/validation/library'
+import type { PlanSummary } from '#shared/types/plan'
+import { studioQuery } from '#shared/validation/library'
 
 // A studio's plans, most recently changed first; knitters see the published ones.
 export default defineEventHandler(async (event): Promise<PlanSummary[]> => {

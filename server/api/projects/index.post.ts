@@ -1,4 +1,4 @@
-import { newProjectBody, studioRef } from '../../../shared/validation/knit'
+import { newProjectBody, studioRef } from '#shared/validation/knit'
 
 // The small "new project" form. Any member may start one; the creator knits it.
 export default defineEventHandler(async (event) => {

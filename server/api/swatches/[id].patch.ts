@@ -1,5 +1,5 @@
-import { idParams } from '../../../shared/validation/knit'
-import { swatchPatch } from '../../../shared/validation/plan'
+import { idParams } from '#shared/validation/knit'
+import { swatchPatch } from '#shared/validation/plan'
 import { Swatch } from '../../db/models'
 
 export default defineEventHandler(async (event) => {

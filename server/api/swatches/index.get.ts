@@ -1,5 +1,5 @@
-import type { SwatchItem } from '../../../shared/types/plan'
-import { studioQuery } from '../../../shared/validation/library'
+import type { SwatchItem } from '#shared/types/stock'
+import { studioQuery } from '#shared/validation/library'
 import { Swatch } from '../../db/models'
 
 // A studio's swatches with their gauge, newest first, for every member.

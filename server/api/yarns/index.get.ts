@@ -1,5 +1,5 @@
-import type { YarnStockItem } from '../../../shared/types/plan'
-import { studioQuery } from '../../../shared/validation/library'
+import type { YarnStockItem } from '#shared/types/stock'
+import { studioQuery } from '#shared/validation/library'
 import { Yarn } from '../../db/models'
 
 // A studio's yarn stock, for every member (YarnListItem's fields plus studio, weight name and notes),

@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize'
-import type { StudioRole } from '../../../shared/types/studio'
+import type { StudioRole } from '#shared/types/studio'
 
 export class Invitation extends Model<InferAttributes<Invitation>, InferCreationAttributes<Invitation>> {
   declare id: CreationOptional<number>

@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize'
-import type { Technique } from '../../../shared/types/studio'
+import type { Technique } from '#shared/types/studio'
 
 export class Machine extends Model<InferAttributes<Machine>, InferCreationAttributes<Machine>> {
   declare id: CreationOptional<number>

@@ -1,5 +1,5 @@
-import type { FloatVerdict } from '../../../shared/knitting'
-import type { MotifFloatReport } from '../../../shared/types/motif'
+import type { FloatVerdict } from '#shared/engine'
+import type { MotifFloatReport } from '#shared/types/motif'
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize'
 import { parsedJson } from './json'
 import type { User } from './user'

@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize'
-import type { PieceTimeline } from '../../../shared/types/knit'
+import type { PieceTimeline } from '#shared/piece/types'
 import type { Project } from './project'
 import { parsedJson } from './json'
 

@@ -1,5 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize'
-import type { LengthUnit, PlanSection, PlanYarnSlot } from '../../../shared/types/plan'
+import type { PlanSection, PlanYarnSlot } from '#shared/types/plan'
+import type { LengthUnit } from '#shared/types/stock'
 import { parsedJson } from './json'
 import type { User } from './user'
 

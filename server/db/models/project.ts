@@ -1,5 +1,6 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize'
-import { slotSymbols, type ProjectPlanSnapshot, type ProjectStatus, type ProjectYarn } from '../../../shared/types/knit'
+import type { ProjectPlanSnapshot, ProjectStatus, ProjectYarn } from '#shared/types/knit'
+import { slotSymbols } from '#shared/piece/types'
 import type { Piece } from './piece'
 import type { User } from './user'
 import { parsedJson } from './json'

@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize'
-import type { RowEventKind, RowEventOutcome } from '../../../shared/types/knit'
+import type { RowEventKind, RowEventOutcome } from '#shared/piece/types'
 
 /** One tap at the machine as the device recorded it, and what the server made of it. Never deleted. */
 export class RowEvent extends Model<InferAttributes<RowEvent>, InferCreationAttributes<RowEvent>> {

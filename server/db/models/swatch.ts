@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type Sequelize } from 'sequelize'
-import type { LengthUnit } from '../../../shared/types/plan'
+import type { LengthUnit } from '#shared/types/stock'
 
 export class Swatch extends Model<InferAttributes<Swatch>, InferCreationAttributes<Swatch>> {
   declare id: CreationOptional<number>

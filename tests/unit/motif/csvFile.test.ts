@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { motifFromCsv, motifToCsv } from '../../../shared/motif/file'
+import { motifFromCsv, motifToCsv } from '#shared/motif/file'
 import { readCsv } from '../../support/rfc4180'
 
 // The motif CSV as a spreadsheet reads it: the name is one field, and no cell starts with a

@@ -1,4 +1,5 @@
 import { IDBFactory, IDBKeyRange } from 'fake-indexeddb'
+import { applyRowEvent } from '#shared/piece/rowEvent'
 import { openFloatwiseDb, savePiece, type FloatwiseDb, type OpenOptions } from '../../../service'
 import type { PieceDetail, RowEvent, SyncConflict, SyncRequest, SyncResponse } from '../../../service/types'
 
@@ -36,12 +37,10 @@ export type FakeFailure = 'network' | 'lost-answer' | 401 | 400 | 500 | 503
 interface StoredEvent extends RowEvent { deviceId: string; outcome: 'applied' | 'conflict' }
 
 /**
- * A stand-in for `fetch` that applies the server's rule for `POST /api/sync` (as
- * server/utils/sync.ts does): each event id is stored once (a replay is accepted and changes
- * nothing); an event applies only when its version equals the piece's version, it starts from
- * the piece's place (a jump may start anywhere) and, once this device is in conflict on the
- * piece, only a jump does; anything else is logged as a conflict.
- * A device's conflict stands while its latest event on the piece is one.
+ * A stand-in for `fetch` that answers `POST /api/sync` as server/utils/sync.ts does: each
+ * event id is stored once (a replay is accepted and changes nothing), and whether an event
+ * moves the piece is the server's own rule, applyRowEvent; anything else is logged as a
+ * conflict. A device's conflict stands while its latest event on the piece is one.
  */
 export function fakeSyncServer(initial: Record<number, { completedRows: number; version?: number }> = { 1: { completedRows: 0 } }) {
   const pieces = new Map(Object.entries(initial).map(([id, p]) => [Number(id), { completedRows: p.completedRows, version: p.version ?? 0, lastDevice: 'seed' }]))
@@ -65,10 +64,9 @@ export function fakeSyncServer(initial: Record<number, { completedRows: number; 
       touched.add(e.pieceId)
       if (!stored.has(e.id)) {
         const key = `${body.deviceId}/${e.pieceId}`
-        const applies = e.version === piece.version && (e.kind === 'jump' || e.from === piece.completedRows)
-          && (latest.get(key)?.outcome !== 'conflict' || e.kind === 'jump')
-        if (applies) Object.assign(piece, { completedRows: e.to, version: piece.version + 1, lastDevice: body.deviceId })
-        const event: StoredEvent = { ...e, deviceId: body.deviceId, outcome: applies ? 'applied' : 'conflict' }
+        const step = applyRowEvent(piece, e, latest.get(key)?.outcome === 'conflict')
+        if (step.outcome === 'applied') Object.assign(piece, step.place, { lastDevice: body.deviceId })
+        const event: StoredEvent = { ...e, deviceId: body.deviceId, outcome: step.outcome }
         stored.set(e.id, event)
         latest.set(key, event)
       }

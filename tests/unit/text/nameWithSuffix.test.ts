@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { NAME_MAX, nameWithSuffix } from '../../../shared/text/nameWithSuffix'
+import { NAME_MAX, nameWithSuffix } from '#shared/text/nameWithSuffix'
 
 const studio = '’s studio'
 

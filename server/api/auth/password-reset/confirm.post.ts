@@ -1,5 +1,5 @@
 import { Op } from 'sequelize'
-import { resetConfirmBody } from '../../../../shared/validation/auth'
+import { resetConfirmBody } from '#shared/validation/auth'
 import { PasswordReset, User } from '../../../db/models'
 
 // The link proves the person reads the address's mail: the address counts as confirmed, and

@@ -1,4 +1,4 @@
-import { sessionParams } from '../../../../shared/validation/auth'
+import { sessionParams } from '#shared/validation/auth'
 
 // Ends one of the person's own sessions (another person's id is simply not found).
 export default defineEventHandler(async (event) => {

@@ -1,4 +1,4 @@
-import { motifDuplicateBody, motifIdParams } from '../../../../shared/validation/motif'
+import { motifDuplicateBody, motifIdParams } from '#shared/validation/motif'
 import { Motif } from '../../../db/models'
 
 // A copy to change without touching the original: a draft, without the original picture.

@@ -1,5 +1,5 @@
-import { motifToCsv, motifToJson } from '../../../../shared/motif/file'
-import { motifExportQuery, motifIdParams } from '../../../../shared/validation/motif'
+import { motifToCsv, motifToJson } from '#shared/motif/file'
+import { motifExportQuery, motifIdParams } from '#shared/validation/motif'
 import { motifChart } from '../../../db/motifs'
 
 // The motif as a file: our JSON format, CSV of 0/1, or a PNG picture (README, "Motif file format").

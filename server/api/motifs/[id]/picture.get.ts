@@ -1,4 +1,4 @@
-import { motifIdParams } from '../../../../shared/validation/motif'
+import { motifIdParams } from '#shared/validation/motif'
 
 // The original picture a motif was made from, byte for byte, to whoever may see the motif.
 export default defineEventHandler(async (event) => {

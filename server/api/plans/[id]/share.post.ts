@@ -1,5 +1,5 @@
-import { resetRequestBody } from '../../../../shared/validation/auth'
-import { idParams } from '../../../../shared/validation/knit'
+import { resetRequestBody } from '#shared/validation/auth'
+import { idParams } from '#shared/validation/knit'
 
 // A designer shares a published plan with someone outside the studio: they are invited as a
 // knitter (so they see the studio's published plans, and only those) and land on this plan.

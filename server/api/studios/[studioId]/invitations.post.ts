@@ -1,4 +1,4 @@
-import { inviteBody, studioParams } from '../../../../shared/validation/auth'
+import { inviteBody, studioParams } from '#shared/validation/auth'
 
 export default defineEventHandler(async (event) => {
   await requireUser(event) // 401 before anything about the request is checked

@@ -1,5 +1,5 @@
 import { Op } from 'sequelize'
-import { studioParams } from '../../../../../shared/validation/auth'
+import { studioParams } from '#shared/validation/auth'
 import { Invitation, Membership, User } from '../../../../db/models'
 
 // Members of a studio for any member; their e-mail addresses and the pending invitations only

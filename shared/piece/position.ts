@@ -1,0 +1,137 @@
+// Where the knitter is in a piece, in the words the knit view shows: the row being knitted,
+// its row pair, the section, the yarn in the feeder, how far to the next colour change, and
+// what comes up next. Pure: the same answer on the tablet offline and in tests.
+
+import type { CompiledPlan } from '#shared/engine'
+import type { PieceSection, PieceTimeline, SlotYarn } from '#shared/piece/types'
+
+export interface KnitPosition {
+  totalRows: number
+  completedRows: number
+  finished: boolean
+  /** 1-based machine row now being knitted (null once finished). */
+  row: number | null
+  /** The rows the next step covers: [first, last], 1-based (one row, or a row pair). */
+  stepRows: [number, number] | null
+  /** 1-based row pair in the piece (rows 1–2 are pair 1). */
+  pair: number | null
+  totalPairs: number
+  section: null | {
+    index: number
+    count: number
+    label: string
+    kind: PieceSection['kind']
+    /** 1-based row within the section and the section's length in machine rows. */
+    row: number
+    rows: number
+    pair: number
+    pairs: number
+    /** For motif sections: 1-based chart row and chart height. */
+    chartRow: number | null
+    chartHeight: number | null
+  }
+  /** Yarns in the feeder for the current row (main first in a 'together' row). */
+  yarns: SlotYarn[]
+  /** The yarns change on the current row: the knitter changes yarn before knitting it. */
+  changeNow: boolean
+  /** Rows from the current row to the next row (after it) where the yarns change, or null if they never do again. */
+  rowsToChange: number | null
+  /** 1-based row at which the yarns next change, and the yarns then. */
+  changeRow: number | null
+  nextYarns: SlotYarn[]
+  /** The next thing the knitter must do besides knitting on. */
+  upcoming: null | { row: number; rowsAway: number; kind: 'section' | 'end'; text: string }
+}
+
+/** Rows of each section, in order, from the compiled rows. */
+function sectionSpans(compiled: CompiledPlan, count: number) {
+  const spans = Array.from({ length: count }, () => ({ start: -1, rows: 0 }))
+  compiled.rows.forEach((r, i) => {
+    const span = spans[r.section]!
+    if (span.start < 0) span.start = i
+    span.rows++
+  })
+  return spans
+}
+
+function describeSection(s: PieceSection, rows: number, yarns: Map<string, SlotYarn>) {
+  if (s.kind === 'plain') return `${s.label} · ${rows} rows in ${yarns.get(s.yarn)?.name ?? s.yarn}`
+  const name = s.label === s.motifName ? s.label : `${s.label} · ${s.motifName}`
+  return `${name} · ${rows} rows in ${yarns.get(s.main)?.name ?? s.main} and ${yarns.get(s.contrast)?.name ?? s.contrast}`
+}
+
+export function knitPosition(timeline: PieceTimeline, compiled: CompiledPlan, completedRows: number, step: 1 | 2 = 2): KnitPosition {
+  const totalRows = compiled.rows.length
+  const done = Math.max(0, Math.min(completedRows, totalRows))
+  const yarnBySlot = new Map(timeline.yarns.map(y => [y.slot, y]))
+  const pick = (slots: string[]) => slots.map(s => yarnBySlot.get(s) ?? { slot: s, name: s, hex: '#888888', symbol: '?' })
+  const spans = sectionSpans(compiled, timeline.sections.length)
+  const base = { totalRows, completedRows: done, totalPairs: Math.ceil(totalRows / 2) }
+  if (done >= totalRows) {
+    return { ...base, finished: true, row: null, stepRows: null, pair: null, section: null, yarns: [], changeNow: false, rowsToChange: null, changeRow: null, nextYarns: [], upcoming: null }
+  }
+
+  const here = compiled.rows[done]!
+  const span = spans[here.section]!
+  const s = timeline.sections[here.section]!
+  const rowInSection = done - span.start + 1
+  const chartHeight = s.kind === 'motif' ? s.chart.length : null
+
+  // The first change after the current row (binary search: changes are ascending).
+  let lo = 0, hi = compiled.changes.length
+  while (lo < hi) {
+    const mid = (lo + hi) >> 1
+    if (compiled.changes[mid]! <= done) lo = mid + 1
+    else hi = mid
+  }
+  const change = compiled.changes[lo]
+  const changeNow = lo > 0 && compiled.changes[lo - 1] === done
+  const nextSectionIndex = here.section + 1 < timeline.sections.length ? here.section + 1 : null
+  const sectionEnd = span.start + span.rows // 0-based index of the first row after this section
+  const upcoming = nextSectionIndex !== null
+    ? { row: sectionEnd + 1, rowsAway: sectionEnd - done, kind: 'section' as const, text: describeSection(timeline.sections[nextSectionIndex]!, spans[nextSectionIndex]!.rows, yarnBySlot) }
+    : { row: totalRows, rowsAway: totalRows - done, kind: 'end' as const, text: 'End of the piece: cast off as the plan says' }
+
+  return {
+    ...base,
+    finished: false,
+    row: done + 1,
+    stepRows: [done + 1, Math.min(done + step, totalRows)],
+    pair: Math.floor(done / 2) + 1,
+    section: {
+      index: here.section,
+      count: timeline.sections.length,
+      label: s.label,
+      kind: s.kind,
+      row: rowInSection,
+      rows: span.rows,
+      pair: Math.floor((rowInSection - 1) / 2) + 1,
+      pairs: Math.ceil(span.rows / 2),
+      chartRow: here.chartRow === null ? null : here.chartRow + 1,
+      chartHeight,
+    },
+    yarns: pick(here.yarns),
+    changeNow,
+    rowsToChange: change === undefined ? null : change - done,
+    changeRow: change === undefined ? null : change + 1,
+    nextYarns: change === undefined ? [] : pick(compiled.rows[change]!.yarns),
+    upcoming,
+  }
+}
+
+/**
+ * Whether the step from `before` to `after` completed rows passes the point where the
+ * knitter should be warned: `ahead` rows before a colour change or a section start, and the
+ * end of the piece. Returns what to announce, most important first.
+ */
+export function cuesForStep(compiled: CompiledPlan, timeline: PieceTimeline, before: number, after: number, ahead: number): ('change' | 'section' | 'end')[] {
+  if (after <= before) return []
+  const cues: ('change' | 'section' | 'end')[] = []
+  const total = compiled.rows.length
+  if (after >= total) return ['end']
+  // A change at row index c is announced once the knitter has completed c − ahead rows.
+  if (compiled.changes.some(c => c - ahead > before && c - ahead <= after)) cues.push('change')
+  const spans = sectionSpans(compiled, timeline.sections.length)
+  if (spans.slice(1).some(sp => sp.start > 0 && sp.start > before && sp.start <= after)) cues.push('section')
+  return cues
+}
