@@ -3,6 +3,7 @@ import { log } from './log.mjs'
 import { run } from './run.mjs'
 import { privateMariadb } from './mariadb.mjs'
 import { keptSecret } from './secrets.mjs'
+import { typescriptRun } from './typescript.mjs'
 
 /**
  * Everything both commands need before the app runs: a database (the private MariaDB
@@ -25,8 +26,8 @@ export async function prepareDatabase(root, { database, fresh = false }) {
     log(`Database ${database} ready on 127.0.0.1:${db.port}${fresh ? ' (created fresh)' : ''}`)
   }
   env.NUXT_SESSION_PASSWORD = keptSecret(join(root, '.data/session-password'), process.env.NUXT_SESSION_PASSWORD)
-  const dbScript = ['--import', 'jiti/register', join(root, 'scripts/db.ts')]
-  run(process.execPath, [...dbScript, 'migrate'], { cwd: root, env: { ...process.env, ...env } })
-  run(process.execPath, [...dbScript, 'seed'], { cwd: root, env: { ...process.env, ...env } })
+  const dbScript = typescriptRun(root, 'scripts/db.ts')
+  run(process.execPath, [...dbScript.args, 'migrate'], { cwd: root, env: { ...process.env, ...env, ...dbScript.env } })
+  run(process.execPath, [...dbScript.args, 'seed'], { cwd: root, env: { ...process.env, ...env, ...dbScript.env } })
   return { env, stop }
 }
