@@ -18,11 +18,12 @@ const people = [
   { model: User, as: 'creator', attributes: ['id', 'name'] },
   { model: User, as: 'editor', attributes: ['id', 'name'] },
 ]
-const withPieces = [...people, { model: PlanPiece, as: 'pieces' }]
+/** A plan with its people and pieces, as every plan answer loads it. */
+export const planWithPieces = [...people, { model: PlanPiece, as: 'pieces' }]
 
 export async function requirePlan(event: H3Event, id: number, least: StudioRole = 'knitter') {
   const user = await requireUser(event)
-  const plan = await Plan.findByPk(id, { include: withPieces })
+  const plan = await Plan.findByPk(id, { include: planWithPieces })
   const role = plan && (await Membership.findOne({ where: { studioId: plan.studioId, userId: user.id }, attributes: ['role'] }))?.role
   if (!plan || !role || (role === 'knitter' && !plan.published)) throw createError({ statusCode: 404, message: 'Plan not found' })
   if (roleRank[role] < roleRank[least]) throw createError({ statusCode: 403, message: `This needs the ${least} role in this studio` })
@@ -220,7 +221,7 @@ export async function planDetail(plan: Plan, viewer: StudioRole): Promise<PlanDe
 
 /** The plan as its designers see it, for the answer to their own create or change. */
 export async function loadPlanDetail(id: number) {
-  return planDetail((await Plan.findByPk(id, { include: withPieces }))!, 'designer')
+  return planDetail((await Plan.findByPk(id, { include: planWithPieces }))!, 'designer')
 }
 
 /**
@@ -255,21 +256,4 @@ export async function startProjectFromPlan(plan: Plan, body: PlanProjectBody, kn
     source: 'plan', plan: { id: plan.id, name: plan.name }, pieces,
   }, transaction))
   return project.id
-}
-
-/**
- * Grams of each yarn the studio's published plans call for, summed over those plans (drafts are
- * still changing, so they do not count). Plans without an estimate add nothing.
- */
-export async function plannedGramsByYarn(studioId: number): Promise<Map<number, { grams: number; plans: number }>> {
-  const plans = await Plan.findAll({ where: { studioId, published: true }, include: withPieces })
-  const planned = new Map<number, { grams: number; plans: number }>()
-  for (const plan of plans) {
-    const detail = await planDetail(plan, 'owner') // only the grams are used
-    for (const y of detail.estimate?.yarns ?? []) {
-      const p = planned.get(y.yarnId) ?? { grams: 0, plans: 0 }
-      planned.set(y.yarnId, { grams: p.grams + y.grams, plans: p.plans + 1 })
-    }
-  }
-  return planned
 }

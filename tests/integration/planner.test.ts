@@ -204,6 +204,37 @@ describe('plans', () => {
     expect(await listed()).toMatchObject({ plannedIn: 1, low: false })
   })
 
+  it('keeps the stock list\'s planned grams true to every change the estimate reads', async () => {
+    // The answer is kept between calls (server/utils/plannedYarn.ts); each change below must show.
+    // Same pocket as above, one copy: B needs 0.2225 g with a 2 g swatch.
+    const swatch = await made(as.designer.post('/api/swatches', { studioId: s.studio.id, stitches: 10, rows: 10, width: 10, height: 10, unit: 'cm', grams: 2 }))
+    const scrap = await made(as.designer.post('/api/yarns', yarn({ name: 'Kept scrap', hex: '#2a1c4a', metresPer100g: 200, gramsOnHand: 5 })))
+    const pocket = (rows: number) => [{ name: 'Pocket', copies: 1, targetWidth: 10, targetLength: 6, sections: [
+      { kind: 'plain', rows, yarn: 'A' },
+      { kind: 'motif', motifId: stock.motif.id, placement: 'centred', chartRows: 2, main: 'A', contrast: 'B' },
+    ] }]
+    const plan = await made(as.designer.post('/api/plans', handbookPlan({ swatchId: swatch.id, yarns: [{ slot: 'A', yarnId: stock.oat.id }, { slot: 'B', yarnId: scrap.id }], pieces: pocket(4) })))
+    await made(as.designer.patch(`/api/plans/${plan.id}`, { published: true }), 200)
+    const planned = async () => (await as.knitter.get(`/api/yarns?studioId=${s.studio.id}`)).body.find((x: any) => x.id === scrap.id)
+    expect((await planned()).plannedGrams).toBeCloseTo(0.2225, 9)
+    expect((await planned()).plannedGrams).toBeCloseTo(0.2225, 9) // kept: the same answer
+    // The swatch weighed twice as much: every stitch weighs twice as much → 0.2 × 2 + 0.0225 (floats by length).
+    await made(as.designer.patch(`/api/swatches/${swatch.id}`, { grams: 4 }), 200)
+    expect((await planned()).plannedGrams).toBeCloseTo(0.4225, 9)
+    // Two copies of the piece: twice the grams.
+    await made(as.designer.patch(`/api/plans/${plan.id}`, { pieces: pocket(4).map(p => ({ ...p, copies: 2 })) }), 200)
+    expect((await planned()).plannedGrams).toBeCloseTo(0.845, 9)
+    // The yarn's length per weight halves: its floats weigh twice as much (0.045 m at 100 m/100 g = 0.045 g a copy).
+    await made(as.designer.patch(`/api/yarns/${scrap.id}`, { metresPer100g: 100 }), 200)
+    expect((await planned()).plannedGrams).toBeCloseTo(0.89, 9)
+    await made(as.designer.patch(`/api/plans/${plan.id}`, { published: false }), 200)
+    expect(await planned()).toMatchObject({ plannedGrams: 0, plannedIn: 0 })
+    await made(as.designer.patch(`/api/plans/${plan.id}`, { published: true }), 200)
+    expect((await planned()).plannedIn).toBe(1)
+    expect((await as.designer.delete(`/api/plans/${plan.id}`)).status).toBe(204)
+    expect(await planned()).toMatchObject({ plannedGrams: 0, plannedIn: 0 })
+  })
+
   it('knitters see published plans only; designers write', async () => {
     const draft = await made(as.designer.post('/api/plans', handbookPlan({ name: 'Draft plan' })))
     expect((await as.knitter.get(`/api/plans/${draft.id}`)).status).toBe(404)
