@@ -75,10 +75,6 @@ export default defineNuxtConfig({
     '/api/**': { headers: apiAnswerHeaders },
   },
   hooks: {
-    // Nitro types `$fetch('/api/…')` by matching the path against every route at compile time;
-    // with this many routes TypeScript overflows (TS2321, "excessive stack depth"). Calls name
-    // their answer type instead (`$fetch<PieceDetail>(…)`, `useFetch<…>`), so the route table
-    // is left out of the generated types.
     // Errors get their standard status text, and a database that is not answering becomes a
     // 503, before Nuxt's and Nitro's own error handlers see them (Nitro tries the handlers in
     // order until one answers).
@@ -87,7 +83,6 @@ export default defineNuxtConfig({
       config.errorHandler = [...ours, ...[config.errorHandler ?? []].flat()]
     },
     'nitro:init': (nitro) => {
-      nitro.hooks.hook('types:extend', (types) => { types.routes = {} })
       bundlePictureWorker(nitro) // the worker thread that reads pictures
     },
   },
