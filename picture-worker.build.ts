@@ -19,7 +19,7 @@ export function bundlePictureWorker(nitro: Nitro) {
     rollup.output.entryFileNames = chunk => (chunk.name === 'index' ? 'index.mjs' : `workers/${chunk.name}.mjs`)
     const nitroChunks = rollup.output.manualChunks
     if (typeof nitroChunks !== 'function') throw new Error('picture worker: Nitro no longer names its chunks with a function')
-    rollup.output.manualChunks = (id, meta) => (sharedWithWorker.some(path => id.startsWith(path)) ? 'knitting' : nitroChunks(id, meta))
+    rollup.output.manualChunks = (id, meta) => (sharedWithWorker.some(path => id.startsWith(path)) ? 'engine' : nitroChunks(id, meta))
     const plugins = Array.isArray(rollup.plugins) ? rollup.plugins : []
     rollup.plugins = [...plugins, {
       name: 'picture-worker-stays-small',

@@ -14,7 +14,8 @@ cleanupOutdatedCaches()
 // without a second visit; later versions wait for the knitter's yes (SKIP_WAITING).
 clientsClaim()
 
-// Every page navigation gets the prerendered shell ('/'), except the API and the mail fake.
+// Every page navigation gets the prerendered shell ('/'), except the API and the build's own
+// files (a missing script must be a 404, not the shell).
 registerRoute(new NavigationRoute(createHandlerBoundToURL('/'), {
   denylist: [/^\/api\//, /^\/_nuxt\//],
 }))

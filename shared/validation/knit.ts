@@ -9,7 +9,7 @@ const count = (min: number, max: number) => z.number('must be a number').int('mu
 
 export const idParams = z.object({ id: idParam })
 
-/** The small "new project" form (until the planner exists): one motif between two plain borders. */
+/** The quick "new project" form (a project without a plan): one motif between two plain borders. */
 export const newProjectBody = z.object({
   studioId: id,
   name: nameSchema,
