@@ -6,7 +6,7 @@ import { Machine } from '../../db/models'
 export default defineEventHandler(async (event): Promise<MachineItem[]> => {
   await requireUser(event)
   const { studioId } = queryValid(event, studioQuery)
-  await requireStudioRole(event, studioId)
+  await studioMember(event, studioId)
   const rows = await Machine.findAll({ where: { studioId }, order: [['name', 'ASC'], ['id', 'ASC']] })
   return rows.map(machineItem)
 })

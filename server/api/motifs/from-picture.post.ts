@@ -8,7 +8,7 @@ export default defineEventHandler(async (event) => {
   const user = await requireUser(event)
   const { fields, file } = await readPictureForm(event)
   const { studioId } = inputValid(studioQuery, fields)
-  await requireStudioRole(event, studioId, 'designer')
+  await studioMember(event, studioId, 'designer')
   const form = inputValid(pictureMotifFields, fields)
   const picture = requirePictureFile(file)
   const { chart } = await pictureChart(event, user.id, picture, form)

@@ -8,7 +8,7 @@ import { motifRecord } from '../../db/motifs'
 export default defineEventHandler(async (event) => {
   const user = await requireUser(event)
   const { studioId } = await readValid(event, studioQuery)
-  await requireStudioRole(event, studioId, 'designer')
+  await studioMember(event, studioId, 'designer')
   const body = await readValid(event, motifImportBody)
   let file: { name?: string; rows: string[] }
   try { file = body.format === 'csv' ? motifFromCsv(body.content) : motifFromJson(body.content) }

@@ -5,6 +5,6 @@ import { motifListQuery } from '#shared/validation/motif'
 export default defineEventHandler(async (event): Promise<MotifPage> => {
   await requireUser(event)
   const query = queryValid(event, motifListQuery)
-  const { membership } = await requireStudioRole(event, query.studioId)
-  return motifPage(query, membership.role)
+  const { role } = await studioMember(event, query.studioId)
+  return motifPage(query, role)
 })

@@ -8,7 +8,7 @@ export default defineEventHandler(async (event) => {
   const user = await requireUser(event)
   // The studio is checked before the rest of the body, so a stranger learns nothing from errors.
   const { studioId } = await readValid(event, studioQuery)
-  await requireStudioRole(event, studioId, 'designer')
+  await studioMember(event, studioId, 'designer')
   const body = await readValid(event, motifCreateBody)
   const motif = await Motif.create({
     studioId, name: body.name, published: body.published ?? false,

@@ -7,7 +7,7 @@ export default defineEventHandler(async (event): Promise<PicturePreview> => {
   const user = await requireUser(event)
   const { fields, file } = await readPictureForm(event)
   const { studioId } = inputValid(studioQuery, fields)
-  await requireStudioRole(event, studioId, 'designer')
+  await studioMember(event, studioId, 'designer')
   const form = inputValid(picturePreviewFields, fields)
   const { chart, threshold, otsu, rows } = await pictureChart(event, user.id, requirePictureFile(file), form)
   return { width: chart.width, height: chart.height, threshold, otsu, rows }

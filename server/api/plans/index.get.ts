@@ -5,6 +5,6 @@ import { studioQuery } from '#shared/validation/library'
 export default defineEventHandler(async (event): Promise<PlanSummary[]> => {
   await requireUser(event)
   const { studioId } = queryValid(event, studioQuery)
-  const { membership } = await requireStudioRole(event, studioId)
-  return listPlans(studioId, membership.role)
+  const { role } = await studioMember(event, studioId)
+  return listPlans(studioId, role)
 })

@@ -4,7 +4,7 @@ import { planBody } from '#shared/validation/plan'
 export default defineEventHandler(async (event) => {
   const user = await requireUser(event)
   const { studioId } = await readValid(event, studioRef)
-  await requireStudioRole(event, studioId, 'designer')
+  await studioMember(event, studioId, 'designer')
   const body = await readValid(event, planBody)
   await checkPlanRefs(studioId, body)
   const id = await createPlan(body, user.id)

@@ -6,7 +6,7 @@ import { Swatch } from '../../db/models'
 export default defineEventHandler(async (event): Promise<SwatchItem[]> => {
   await requireUser(event)
   const { studioId } = queryValid(event, studioQuery)
-  await requireStudioRole(event, studioId)
+  await studioMember(event, studioId)
   const rows = await Swatch.findAll({ where: { studioId }, order: [['createdAt', 'DESC'], ['id', 'DESC']] })
   return rows.map(swatchItem)
 })

@@ -5,7 +5,7 @@ import { Swatch } from '../../db/models'
 export default defineEventHandler(async (event) => {
   await requireUser(event)
   const { studioId } = await readValid(event, studioRef)
-  await requireStudioRole(event, studioId, 'designer')
+  await studioMember(event, studioId, 'designer')
   const body = await readValid(event, swatchBody)
   await checkSwatchRefs(studioId, body)
   const swatch = await Swatch.create(body)

@@ -7,7 +7,7 @@ import { Yarn } from '../../db/models'
 export default defineEventHandler(async (event): Promise<YarnStockItem[]> => {
   await requireUser(event)
   const { studioId } = queryValid(event, studioQuery)
-  await requireStudioRole(event, studioId)
+  await studioMember(event, studioId)
   const [rows, planned] = await Promise.all([Yarn.findAll({ where: { studioId }, order: [['name', 'ASC']] }), plannedGramsByYarn(studioId)])
   return rows.map((row) => {
     const item = yarnItem(row)

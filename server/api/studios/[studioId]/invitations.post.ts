@@ -3,7 +3,7 @@ import { inviteBody, studioParams } from '#shared/validation/auth'
 export default defineEventHandler(async (event) => {
   await requireUser(event) // 401 before anything about the request is checked
   const { studioId } = paramsValid(event, studioParams)
-  const { user } = await requireStudioRole(event, studioId, 'owner')
+  const { user } = await studioMember(event, studioId, 'owner')
   const body = await readValid(event, inviteBody)
   const invitation = await inviteToStudio(event, { studioId, email: body.email, role: body.role, invitedBy: user })
   setResponseStatus(event, 201)

@@ -5,6 +5,6 @@ import { studioParams } from '#shared/validation/auth'
 export default defineEventHandler(async (event): Promise<ProductionItem[]> => {
   await requireUser(event)
   const { studioId } = paramsValid(event, studioParams)
-  await requireStudioRole(event, studioId, 'designer')
+  await studioMember(event, studioId, 'designer')
   return studioProduction(studioId)
 })

@@ -4,7 +4,7 @@ import { memberParams } from '#shared/validation/auth'
 export default defineEventHandler(async (event) => {
   const user = await requireUser(event)
   const { studioId, userId } = paramsValid(event, memberParams)
-  await requireStudioRole(event, studioId, user.id === userId ? 'knitter' : 'owner')
+  await studioMember(event, studioId, user.id === userId ? 'knitter' : 'owner')
   await removeMember(studioId, userId)
   // Removed by an owner: whatever that person's devices hold of the studio stops there.
   if (user.id !== userId) await endSessions({ userId }, 'removed from a studio')

@@ -7,8 +7,8 @@ import { Invitation, Membership, User } from '../../../../db/models'
 export default defineEventHandler(async (event) => {
   await requireUser(event) // 401 before anything about the request is checked
   const { studioId } = paramsValid(event, studioParams)
-  const { membership } = await requireStudioRole(event, studioId)
-  const owner = membership.role === 'owner'
+  const { role } = await studioMember(event, studioId)
+  const owner = role === 'owner'
   const rows = await Membership.findAll({ where: { studioId }, include: [{ model: User, attributes: ['id', 'name', 'email'] }], order: [['createdAt', 'ASC']] })
   const members = rows.map((m) => {
     const u = (m as Membership & { User: User }).User
