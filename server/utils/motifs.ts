@@ -4,7 +4,7 @@ import { Op, type Order, type WhereOptions } from 'sequelize'
 import { chartToRows, type Chart } from '#shared/engine'
 import type { MotifDetail, MotifListItem, MotifPage, MotifPerson } from '#shared/types/motif'
 import type { StudioRole } from '#shared/types/studio'
-import type { MotifListQuery } from '#shared/validation/motif'
+import type { MotifListQuery } from '#shared/validation/motifs'
 import { Motif, User } from '../db/models'
 import { motifChart } from '../db/motifs'
 

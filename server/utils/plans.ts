@@ -7,7 +7,7 @@ import { copySuffix } from '#shared/piece/copies'
 import { nameWithSuffix } from '#shared/text/nameWithSuffix'
 import type { PlanDetail, PlanPerson, PlanPiece as PlanPieceView, PlanSummary, PlanWarning, PlanYarnNeed } from '#shared/types/plan'
 import { roleAtLeast, type StudioRole } from '#shared/types/studio'
-import type { PlanBody, PlanPatch, PlanProjectBody } from '#shared/validation/plan'
+import type { PlanBody, PlanPatch, PlanProjectBody } from '#shared/validation/plans'
 import { Machine, Motif, Plan, PlanPiece, Swatch, User, Yarn } from '../db/models'
 import { insertProject } from '../db/projects'
 

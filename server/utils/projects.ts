@@ -4,7 +4,7 @@ import { KnittingInputError } from '#shared/engine'
 import { borderedMotifTimeline, compilePieceTimeline, slotYarns } from '#shared/piece/timeline'
 import type { KnitterPiece, PieceDetail, PieceProgress, ProjectDetail, ProjectSummary } from '#shared/types/knit'
 import { roleAtLeast, type StudioRole } from '#shared/types/studio'
-import type { NewProjectBody } from '#shared/validation/knit'
+import type { NewProjectBody } from '#shared/validation/projects'
 import { Machine, Membership, Motif, Piece, Project, User, Yarn } from '../db/models'
 import { insertProject } from '../db/projects'
 

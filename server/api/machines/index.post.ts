@@ -1,5 +1,5 @@
-import { studioRef } from '#shared/validation/knit'
-import { machineBody } from '#shared/validation/plan'
+import { studioRef } from '#shared/validation/common'
+import { machineBody } from '#shared/validation/machines'
 import { Machine } from '../../db/models'
 
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,5 @@
 import type { MotifPage } from '#shared/types/motif'
-import { motifListQuery } from '#shared/validation/motif'
+import { motifListQuery } from '#shared/validation/motifs'
 
 // A page of a studio's motif library: knitters see the published ones, designers and owners all.
 export default defineEventHandler(async (event): Promise<MotifPage> => {

@@ -1,5 +1,5 @@
-import { studioRef } from '#shared/validation/knit'
-import { planBody } from '#shared/validation/plan'
+import { studioRef } from '#shared/validation/common'
+import { planBody } from '#shared/validation/plans'
 
 export default defineEventHandler(async (event) => {
   const user = await requireUser(event)

@@ -1,4 +1,5 @@
-import { newProjectBody, studioRef } from '#shared/validation/knit'
+import { studioRef } from '#shared/validation/common'
+import { newProjectBody } from '#shared/validation/projects'
 
 // The small "new project" form. Any member may start one; the creator knits it.
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,5 @@
-import { studioRef } from '#shared/validation/knit'
-import { swatchBody } from '#shared/validation/plan'
+import { studioRef } from '#shared/validation/common'
+import { swatchBody } from '#shared/validation/swatches'
 import { Swatch } from '../../db/models'
 
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,5 @@
-import { studioRef } from '#shared/validation/knit'
-import { yarnBody } from '#shared/validation/plan'
+import { studioRef } from '#shared/validation/common'
+import { yarnBody } from '#shared/validation/yarns'
 import { Yarn } from '../../db/models'
 
 export default defineEventHandler(async (event) => {

@@ -1,4 +1,4 @@
-import { memberParams } from '#shared/validation/auth'
+import { memberParams } from '#shared/validation/studios'
 
 // Owners remove anyone; any member may leave (remove themselves). The last owner stays.
 export default defineEventHandler(async (event) => {

@@ -1,4 +1,4 @@
-import { memberParams, roleChangeBody } from '#shared/validation/auth'
+import { memberParams, roleChangeBody } from '#shared/validation/studios'
 
 export default defineEventHandler(async (event) => {
   await requireUser(event) // 401 before anything about the request is checked

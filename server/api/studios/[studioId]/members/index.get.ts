@@ -1,12 +1,12 @@
 import { Op } from 'sequelize'
-import { studioParams } from '#shared/validation/auth'
+import { studioRef } from '#shared/validation/common'
 import { Invitation, Membership, User } from '../../../../db/models'
 
 // Members of a studio for any member; their e-mail addresses and the pending invitations only
 // for owners (who invite and remove people), names and roles for everyone else.
 export default defineEventHandler(async (event) => {
   await requireUser(event) // 401 before anything about the request is checked
-  const { studioId } = paramsValid(event, studioParams)
+  const { studioId } = paramsValid(event, studioRef)
   const { role } = await studioMember(event, studioId)
   const owner = role === 'owner'
   const rows = await Membership.findAll({ where: { studioId }, include: [{ model: User, attributes: ['id', 'name', 'email'] }], order: [['createdAt', 'ASC']] })
