@@ -5,8 +5,6 @@
 export function useStock<T extends { id: number }>(resource: 'machines' | 'yarns' | 'swatches') {
   const account = useAccountStore()
   const studioId = computed(() => account.currentStudio?.id)
-  const canEdit = computed(() => account.currentStudio?.role === 'owner' || account.currentStudio?.role === 'designer')
-  const isOwner = computed(() => account.currentStudio?.role === 'owner')
   const key = computed(() => `stock-${resource}-${studioId.value}`)
   const list = useFetch<T[]>(`/api/${resource}`, { key, query: { studioId }, immediate: !!studioId.value, watch: [studioId], default: () => [] })
   const form = useForm()
@@ -27,5 +25,5 @@ export function useStock<T extends { id: number }>(resource: 'machines' | 'yarns
     return !!done
   }
 
-  return { studioId, canEdit, isOwner, items: list.data, pending: list.pending, error: list.error, refresh: list.refresh, form, save, remove }
+  return { studioId, items: list.data, pending: list.pending, error: list.error, refresh: list.refresh, form, save, remove }
 }

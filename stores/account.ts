@@ -1,5 +1,5 @@
 import { defineStore, acceptHMRUpdate } from 'pinia'
-import type { StudioSummary } from '#shared/types/studio'
+import { roleAtLeast, type StudioRole, type StudioSummary } from '#shared/types/studio'
 
 interface Me { user: { id: number; email: string; name: string }; studios: StudioSummary[] }
 
@@ -20,6 +20,17 @@ export const useAccountStore = defineStore('account', () => {
     ?? studios.value.find(s => !s.personal)
     ?? studios.value[0]
     ?? null)
+  /** The caller's role in the current studio (null: no studio). */
+  const role = computed(() => currentStudio.value?.role ?? null)
+
+  /**
+   * Whether the person has at least `least` in the current studio, or in `studioId` (a motif
+   * opened from a link may be another studio's). Only what the screens offer: the server decides.
+   */
+  function can(least: StudioRole, studioId?: number) {
+    const inStudio = studioId === undefined ? role.value : studios.value.find(s => s.id === studioId)?.role
+    return roleAtLeast(inStudio, least)
+  }
 
   async function sendOwedSignOut() {
     try {
@@ -61,7 +72,7 @@ export const useAccountStore = defineStore('account', () => {
     chosenStudioId.value = null
   }
 
-  return { me, studios, currentStudio, refresh, afterSignIn, chooseStudio, reset }
+  return { me, studios, currentStudio, role, can, refresh, afterSignIn, chooseStudio, reset }
 })
 
 if (import.meta.hot) import.meta.hot.accept(acceptHMRUpdate(useAccountStore, import.meta.hot))

@@ -1,4 +1,4 @@
-import { syncBody } from '#shared/validation/knit'
+import { syncBody } from '#shared/validation/sync'
 
 // A device's outbox of row events (or none, to ask where its pieces stand). Events for
 // pieces the caller does not knit are listed in `rejected` and stored nowhere.

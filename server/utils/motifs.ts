@@ -3,9 +3,9 @@ import { PNG } from 'pngjs'
 import { Op, type Order, type WhereOptions } from 'sequelize'
 import { chartToRows, type Chart } from '#shared/engine'
 import type { MotifDetail, MotifListItem, MotifPage, MotifPerson } from '#shared/types/motif'
-import { roleRank, type StudioRole } from '#shared/types/studio'
-import type { MotifListQuery } from '#shared/validation/motif'
-import { Membership, Motif, User } from '../db/models'
+import type { StudioRole } from '#shared/types/studio'
+import type { MotifListQuery } from '#shared/validation/motifs'
+import { Motif, User } from '../db/models'
 import { motifChart } from '../db/motifs'
 
 // Motifs: who sees what, and the shapes the API answers with. Owners and designers see
@@ -21,16 +21,9 @@ const people = [
  * not a member, or a knitter asking for a draft → 404; a lower role → 403.
  */
 export async function requireMotif(event: H3Event, id: number, least: StudioRole = 'knitter') {
-  const user = await requireUser(event)
   const motif = await Motif.findByPk(id, { include: people })
-  const role = motif && (await Membership.findOne({ where: { studioId: motif.studioId, userId: user.id }, attributes: ['role'] }))?.role
-  if (!motif || !role || (role === 'knitter' && !motif.published)) {
-    throw createError({ statusCode: 404, message: 'Motif not found' })
-  }
-  if (roleRank[role] < roleRank[least]) {
-    throw createError({ statusCode: 403, message: `This needs the ${least} role in this studio` })
-  }
-  return { user, motif, role }
+  const { user, role } = await studioMember(event, motif?.studioId, least, { what: 'Motif', sees: role => role !== 'knitter' || motif!.published })
+  return { user, motif: motif!, role } // no motif: studioMember answered 404
 }
 
 function person(user: User | null | undefined): MotifPerson | null {

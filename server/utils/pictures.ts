@@ -1,6 +1,6 @@
 import type { H3Event } from 'h3'
-import { PICTURE_UPLOAD } from '#shared/validation/motif'
-import type { PicturePreviewFields } from '#shared/validation/motif'
+import { PICTURE_UPLOAD } from '#shared/motif/limits'
+import type { PicturePreviewFields } from '#shared/validation/motifs'
 import type { PictureType } from '../pictures/chartFromPicture'
 import { chartInWorker, DecoderFailedError, DecodeRefusal, decodeQueue, DecodeTimeoutError } from '../pictures/decodePool'
 import { QueueFullError } from '../pictures/decodeQueue'

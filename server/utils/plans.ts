@@ -6,9 +6,9 @@ import { motifSectionName, planSlotYarns, workPlanPiece, type PlanMotif, type Wo
 import { copySuffix } from '#shared/piece/copies'
 import { nameWithSuffix } from '#shared/text/nameWithSuffix'
 import type { PlanDetail, PlanPerson, PlanPiece as PlanPieceView, PlanSummary, PlanWarning, PlanYarnNeed } from '#shared/types/plan'
-import { roleRank, type StudioRole } from '#shared/types/studio'
-import type { PlanBody, PlanPatch, PlanProjectBody } from '#shared/validation/plan'
-import { Machine, Membership, Motif, Plan, PlanPiece, Swatch, User, Yarn } from '../db/models'
+import { roleAtLeast, type StudioRole } from '#shared/types/studio'
+import type { PlanBody, PlanPatch, PlanProjectBody } from '#shared/validation/plans'
+import { Machine, Motif, Plan, PlanPiece, Swatch, User, Yarn } from '../db/models'
 import { insertProject } from '../db/projects'
 
 // Plans: owners and designers see and write every plan of their studio; knitters see the
@@ -21,13 +21,11 @@ const people = [
 /** A plan with its people and pieces, as every plan answer loads it. */
 export const planWithPieces = [...people, { model: PlanPiece, as: 'pieces' }]
 
+/** A plan the caller may see (knitters: published ones), with at least `least` role in its studio, or 404/403. */
 export async function requirePlan(event: H3Event, id: number, least: StudioRole = 'knitter') {
-  const user = await requireUser(event)
   const plan = await Plan.findByPk(id, { include: planWithPieces })
-  const role = plan && (await Membership.findOne({ where: { studioId: plan.studioId, userId: user.id }, attributes: ['role'] }))?.role
-  if (!plan || !role || (role === 'knitter' && !plan.published)) throw createError({ statusCode: 404, message: 'Plan not found' })
-  if (roleRank[role] < roleRank[least]) throw createError({ statusCode: 403, message: `This needs the ${least} role in this studio` })
-  return { user, plan, role }
+  const { user, role } = await studioMember(event, plan?.studioId, least, { what: 'Plan', sees: role => role !== 'knitter' || !!plan!.published })
+  return { user, plan: plan!, role } // no plan: studioMember answered 404
 }
 
 const person = (u: User | null | undefined): PlanPerson | null => (u ? { id: u.id, name: u.name } : null)
@@ -99,7 +97,7 @@ async function planInputs(plan: Plan, viewer: StudioRole) {
   ])
   const stock = new Map(yarns.map(y => [y.id, y]))
   const slots = plan.yarns.flatMap(y => (stock.has(y.yarnId) ? [{ ...y, yarn: stock.get(y.yarnId)! }] : []))
-  const hideDrafts = roleRank[viewer] < roleRank.designer
+  const hideDrafts = !roleAtLeast(viewer, 'designer')
   const motifMap = new Map<number, PlanMotif>(motifs.map(m => [m.id, { name: hideDrafts && !m.published ? null : m.name, chart: motifChartRows(m) }]))
   return { pieces, machine, swatch, slots, motifMap }
 }

@@ -3,8 +3,8 @@ import { Op } from 'sequelize'
 import { KnittingInputError } from '#shared/engine'
 import { borderedMotifTimeline, compilePieceTimeline, slotYarns } from '#shared/piece/timeline'
 import type { KnitterPiece, PieceDetail, PieceProgress, ProjectDetail, ProjectSummary } from '#shared/types/knit'
-import { roleRank, type StudioRole } from '#shared/types/studio'
-import type { NewProjectBody } from '#shared/validation/knit'
+import { roleAtLeast, type StudioRole } from '#shared/types/studio'
+import type { NewProjectBody } from '#shared/validation/projects'
 import { Machine, Membership, Motif, Piece, Project, User, Yarn } from '../db/models'
 import { insertProject } from '../db/projects'
 
@@ -16,17 +16,13 @@ export type ProjectAccess = 'knitter' | 'viewer'
 export function projectAccess(project: Pick<Project, 'knitterId'>, userId: number, role: StudioRole | undefined): ProjectAccess | null {
   if (!role) return null
   if (project.knitterId === userId) return 'knitter'
-  return roleRank[role] >= roleRank.designer ? 'viewer' : null
+  return roleAtLeast(role, 'designer') ? 'viewer' : null
 }
 
 /** The caller's role per studio. */
 export async function rolesByStudio(userId: number): Promise<Map<number, StudioRole>> {
   const rows = await Membership.findAll({ where: { userId }, attributes: ['studioId', 'role'] })
   return new Map(rows.map(m => [m.studioId, m.role]))
-}
-
-async function roleIn(studioId: number, userId: number) {
-  return (await Membership.findOne({ where: { studioId, userId }, attributes: ['role'] }))?.role
 }
 
 // Progress lists never need the (large) timeline.
@@ -36,36 +32,30 @@ const withoutSnapshot = { exclude: ['planSnapshot'] }
 
 /** A project the caller may see, with its pieces and knitter, or a 404. */
 export async function requireProject(event: H3Event, id: number) {
-  const user = await requireUser(event)
   const project = await Project.findByPk(id, { attributes: withoutSnapshot, include: [piecesWithoutTimeline, knitterName] })
-  const access = project && projectAccess(project, user.id, await roleIn(project.studioId, user.id))
-  if (!project || !access) throw createError({ statusCode: 404, message: 'Project not found' })
-  return { user, project, access }
+  const { user, role } = await studioMember(event, project?.studioId, 'knitter', { what: 'Project', sees: (role, user) => !!projectAccess(project!, user.id, role) })
+  return { user, project: project!, role } // no project, or not the caller's to see: studioMember answered 404
 }
 
 /**
- * A piece the caller may see (with `forKnitting`: one they knit), with its project, or a 404.
+ * A piece the caller may see, with its project, or a 404.
  * `withTimeline: false` skips loading the timeline (progress checks).
  */
-export async function requirePiece(event: H3Event, id: number, options: { forKnitting?: boolean; withTimeline?: boolean } = {}) {
-  const user = await requireUser(event)
+export async function requirePiece(event: H3Event, id: number, options: { withTimeline?: boolean } = {}) {
   const piece = await Piece.findByPk(id, {
     attributes: options.withTimeline === false ? { exclude: ['timeline'] } : undefined,
     include: [{ model: Project, as: 'project', attributes: { exclude: ['planSnapshot'] } }],
   })
   const project = piece?.project
-  const access = project && projectAccess(project, user.id, await roleIn(project.studioId, user.id))
-  if (!piece || !project || !access || (options.forKnitting && access !== 'knitter')) {
-    throw createError({ statusCode: 404, message: 'Piece not found' })
-  }
-  return { user, piece, project, access }
+  const { user, role } = await studioMember(event, project?.studioId, 'knitter', { what: 'Piece', sees: (role, user) => !!projectAccess(project!, user.id, role) })
+  return { user, piece: piece!, project: project!, role } // no piece, or not the caller's to see: studioMember answered 404
 }
 
 /** Every project the person may see, most recently active first. */
 export async function visibleProjects(userId: number): Promise<ProjectSummary[]> {
   const roles = await rolesByStudio(userId)
   const studios = [...roles.keys()]
-  const overseen = studios.filter(s => roleRank[roles.get(s)!] >= roleRank.designer)
+  const overseen = studios.filter(s => roleAtLeast(roles.get(s), 'designer'))
   const projects = await Project.findAll({
     where: { [Op.or]: [{ studioId: overseen }, { studioId: studios, knitterId: userId }] },
     attributes: withoutSnapshot,
@@ -153,16 +143,6 @@ export async function pieceDetail(piece: Piece, project: Project): Promise<Piece
   }
 }
 
-/** A 400 naming one body field, shaped like the validation errors (data.issues) for the client. */
-export function fieldError(field: string, message: string) {
-  return createError({
-    statusCode: 400,
-    statusMessage: 'Bad Request',
-    message: `${field}: ${message}`,
-    data: { issues: [{ path: field.split('.'), message }] },
-  })
-}
-
 /** Motif cells as stored ('0'/'1', row 0 first knitted) → chart rows. */
 export function motifChartRows(motif: Pick<Motif, 'width' | 'height' | 'cells'>): string[] {
   return Array.from({ length: motif.height }, (_, r) => motif.cells.slice(r * motif.width, (r + 1) * motif.width))
@@ -175,7 +155,7 @@ export function motifChartRows(motif: Pick<Motif, 'width' | 'height' | 'cells'>)
  */
 export async function createProjectFromForm(body: NewProjectBody, knitterId: number, role: StudioRole): Promise<number> {
   const { studioId } = body
-  const motifWhere = roleRank[role] >= roleRank.designer ? { id: body.motifId, studioId } : { id: body.motifId, studioId, published: true }
+  const motifWhere = roleAtLeast(role, 'designer') ? { id: body.motifId, studioId } : { id: body.motifId, studioId, published: true }
   const [motif, main, contrast, machine] = await Promise.all([
     Motif.findOne({ where: motifWhere }),
     Yarn.findOne({ where: { id: body.mainYarnId, studioId } }),

@@ -2,9 +2,9 @@ import type { H3Event } from 'h3'
 import type { Model, ModelStatic } from 'sequelize'
 import { gaugeFromSwatch, gaugePer4in, inToCm, yarnWeightCategory, YARN_WEIGHT_CATEGORIES, type Gauge } from '#shared/engine'
 import type { MachineItem, SwatchGauge, SwatchItem, YarnItem } from '#shared/types/stock'
-import { roleRank, type StudioRole } from '#shared/types/studio'
-import type { Swatch} from '../db/models';
-import { Machine, Membership, Yarn } from '../db/models'
+import type { StudioRole } from '#shared/types/studio'
+import type { Swatch } from '../db/models'
+import { Machine, Yarn } from '../db/models'
 
 // Studio stock for the planner: machines, yarns and swatches. Any member reads; designers and
 // owners write; deleting a machine or a yarn is the owner's (they run the studio's stock).
@@ -14,12 +14,9 @@ type StudioRow = Model & { studioId: number }
 
 /** A row of `model` by id in a studio where the caller has at least `least`, or 404/403. */
 export async function requireStudioRow<M extends StudioRow>(event: H3Event, model: ModelStatic<M>, id: number, least: StudioRole, what: string) {
-  const user = await requireUser(event)
   const row = await model.findByPk(id)
-  const role = row && (await Membership.findOne({ where: { studioId: row.studioId, userId: user.id }, attributes: ['role'] }))?.role
-  if (!row || !role) throw createError({ statusCode: 404, message: `${what} not found` })
-  if (roleRank[role] < roleRank[least]) throw createError({ statusCode: 403, message: `This needs the ${least} role in this studio` })
-  return { user, row, role }
+  const { user, role } = await studioMember(event, row?.studioId, least, { what })
+  return { user, row: row!, role } // no row: studioMember answered 404
 }
 
 /** Ids given in a body must name rows of the same studio; otherwise a 400 naming the field. */

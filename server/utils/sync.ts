@@ -1,7 +1,7 @@
 import { UniqueConstraintError, type Transaction } from 'sequelize'
 import { applyRowEvent } from '#shared/piece/rowEvent'
 import type { ProjectStatus, SyncAnswer, SyncPieceState } from '#shared/types/knit'
-import type { RowEventInput, SyncBody } from '#shared/validation/knit'
+import type { RowEventInput, SyncBody } from '#shared/validation/sync'
 import {
   countOtherOpenPieces, insertRowEvents, knittablePieces, lockPiece, lockProjectStatus, pieceStates, storedAndLatest,
   updatePiecePlace, updateProject, type KnittablePiece, type LatestOfDevice, type LockedPiece, type NewRowEvent, type StoredEventOwner,

@@ -34,3 +34,13 @@ export function inputValid<T extends z.ZodType>(schema: T, input: unknown, where
 export function paramsValid<T extends z.ZodType>(event: H3Event, schema: T) {
   return validate(schema, getRouterParams(event, { decode: true }), 'Invalid route parameter')
 }
+
+/** A 400 naming one body field, shaped like the validation errors (data.issues) for the client. */
+export function fieldError(field: string, message: string) {
+  return createError({
+    statusCode: 400,
+    statusMessage: 'Bad Request',
+    message: `${field}: ${message}`,
+    data: { issues: [{ path: field.split('.'), message }] },
+  })
+}

@@ -4,6 +4,11 @@ export type StudioRole = typeof studioRoles[number]
 /** Higher rank can do everything a lower rank can (owner > designer > knitter). */
 export const roleRank: Record<StudioRole, number> = { knitter: 1, designer: 2, owner: 3 }
 
+/** Whether `role` may do what `least` may (no role: not a member, nothing). */
+export function roleAtLeast(role: StudioRole | null | undefined, least: StudioRole) {
+  return !!role && roleRank[role] >= roleRank[least]
+}
+
 export type Technique = 'together' | 'colour-by-colour'
 
 export interface StudioSummary { id: number; name: string; role: StudioRole; personal: boolean }

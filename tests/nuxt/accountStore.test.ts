@@ -51,4 +51,27 @@ describe('the account store', () => {
     expect(logouts).toHaveLength(1)
     expect(account.me?.user.id).toBe(5)
   })
+
+  it('says what the person may do in the studio the screens look at, or in a named one', () => {
+    const account = useAccountStore()
+    expect(account.role).toBeNull()
+    expect(account.can('knitter')).toBe(false) // nobody signed in: no studio, nothing
+    account.me = { user: person.user, studios: [
+      { id: 9, name: 'Saltmarsh', role: 'knitter', personal: false },
+      { id: 11, name: 'Tamsin\'s studio', role: 'owner', personal: true },
+      { id: 12, name: 'Harbour', role: 'designer', personal: false },
+    ] }
+    account.chooseStudio(9)
+    expect(account.role).toBe('knitter')
+    expect([account.can('knitter'), account.can('designer'), account.can('owner')]).toEqual([true, false, false])
+    account.chooseStudio(12)
+    expect(account.role).toBe('designer')
+    expect([account.can('knitter'), account.can('designer'), account.can('owner')]).toEqual([true, true, false])
+    account.chooseStudio(11)
+    expect([account.can('knitter'), account.can('designer'), account.can('owner')]).toEqual([true, true, true])
+    // A motif opened from a link may be another studio's: its own studio's role counts.
+    expect(account.can('designer', 9)).toBe(false)
+    expect(account.can('designer', 12)).toBe(true)
+    expect(account.can('knitter', 404)).toBe(false)
+  })
 })

@@ -1,4 +1,4 @@
-import { idParams } from '#shared/validation/knit'
+import { idParams } from '#shared/validation/common'
 import { Machine } from '../../db/models'
 
 // The owner's: swatches, plans and projects that named the machine keep going without it.

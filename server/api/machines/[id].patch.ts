@@ -1,5 +1,5 @@
-import { idParams } from '#shared/validation/knit'
-import { machinePatch } from '#shared/validation/plan'
+import { idParams } from '#shared/validation/common'
+import { machinePatch } from '#shared/validation/machines'
 import { Machine } from '../../db/models'
 
 export default defineEventHandler(async (event) => {

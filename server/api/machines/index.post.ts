@@ -1,11 +1,11 @@
-import { studioRef } from '#shared/validation/knit'
-import { machineBody } from '#shared/validation/plan'
+import { studioRef } from '#shared/validation/common'
+import { machineBody } from '#shared/validation/machines'
 import { Machine } from '../../db/models'
 
 export default defineEventHandler(async (event) => {
   await requireUser(event)
   const { studioId } = await readValid(event, studioRef)
-  await requireStudioRole(event, studioId, 'designer')
+  await studioMember(event, studioId, 'designer')
   const body = await readValid(event, machineBody)
   const machine = await Machine.create(body)
   setResponseStatus(event, 201)

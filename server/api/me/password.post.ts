@@ -1,4 +1,4 @@
-import { passwordChangeBody } from '#shared/validation/auth'
+import { passwordChangeBody } from '#shared/validation/me'
 import { User } from '../../db/models'
 
 // A new password for the signed-in person; every other device they were signed in on must

@@ -1,9 +1,9 @@
-import { motifIdParams } from '#shared/validation/motif'
+import { idParams } from '#shared/validation/common'
 
 // Projects made from the motif keep their own copy of the chart (their motif link is cleared).
 export default defineEventHandler(async (event) => {
   await requireUser(event)
-  const { id } = paramsValid(event, motifIdParams)
+  const { id } = paramsValid(event, idParams)
   const { motif } = await requireMotif(event, id, 'designer')
   await motif.destroy()
   if (motif.pictureType) {

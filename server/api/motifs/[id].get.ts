@@ -1,8 +1,8 @@
-import { motifIdParams } from '#shared/validation/motif'
+import { idParams } from '#shared/validation/common'
 
 export default defineEventHandler(async (event) => {
   await requireUser(event) // 401 before anything about the request is checked
-  const { id } = paramsValid(event, motifIdParams)
+  const { id } = paramsValid(event, idParams)
   const { motif } = await requireMotif(event, id)
   return motifDetail(motif)
 })

@@ -1,10 +1,11 @@
-import { motifIdParams, motifPatchBody } from '#shared/validation/motif'
+import { idParams } from '#shared/validation/common'
+import { motifPatchBody } from '#shared/validation/motifs'
 import { motifRecord } from '../../db/motifs'
 
 // Rename, redraw or (un)publish. New rows bring a new float report.
 export default defineEventHandler(async (event) => {
   const user = await requireUser(event)
-  const { id } = paramsValid(event, motifIdParams)
+  const { id } = paramsValid(event, idParams)
   const { motif } = await requireMotif(event, id, 'designer')
   const body = await readValid(event, motifPatchBody)
   if (body.name !== undefined) motif.name = body.name

@@ -1,5 +1,5 @@
-import { studioQuery } from '#shared/validation/library'
-import { pictureMotifFields } from '#shared/validation/motif'
+import { studioRef } from '#shared/validation/common'
+import { pictureMotifFields } from '#shared/validation/motifs'
 import { chartRecord } from '../../db/motifs'
 
 // A new motif from an uploaded picture (multipart/form-data), keeping the original.
@@ -7,8 +7,8 @@ import { chartRecord } from '../../db/motifs'
 export default defineEventHandler(async (event) => {
   const user = await requireUser(event)
   const { fields, file } = await readPictureForm(event)
-  const { studioId } = inputValid(studioQuery, fields)
-  await requireStudioRole(event, studioId, 'designer')
+  const { studioId } = inputValid(studioRef, fields)
+  await studioMember(event, studioId, 'designer')
   const form = inputValid(pictureMotifFields, fields)
   const picture = requirePictureFile(file)
   const { chart } = await pictureChart(event, user.id, picture, form)

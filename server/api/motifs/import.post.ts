@@ -1,14 +1,14 @@
 import { motifFromCsv, motifFromJson, MotifFileError } from '#shared/motif/file'
-import { studioQuery } from '#shared/validation/library'
-import { chartRows, motifImportBody } from '#shared/validation/motif'
+import { studioRef } from '#shared/validation/common'
+import { chartRows, motifImportBody } from '#shared/validation/motifs'
 import { Motif } from '../../db/models'
 import { motifRecord } from '../../db/motifs'
 
 // A new motif (a draft) from one of our files: JSON or CSV text (README, "Motif file format").
 export default defineEventHandler(async (event) => {
   const user = await requireUser(event)
-  const { studioId } = await readValid(event, studioQuery)
-  await requireStudioRole(event, studioId, 'designer')
+  const { studioId } = await readValid(event, studioRef)
+  await studioMember(event, studioId, 'designer')
   const body = await readValid(event, motifImportBody)
   let file: { name?: string; rows: string[] }
   try { file = body.format === 'csv' ? motifFromCsv(body.content) : motifFromJson(body.content) }

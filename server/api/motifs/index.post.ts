@@ -1,5 +1,5 @@
-import { studioQuery } from '#shared/validation/library'
-import { motifCreateBody } from '#shared/validation/motif'
+import { studioRef } from '#shared/validation/common'
+import { motifCreateBody } from '#shared/validation/motifs'
 import { Motif } from '../../db/models'
 import { motifRecord } from '../../db/motifs'
 
@@ -7,8 +7,8 @@ import { motifRecord } from '../../db/motifs'
 export default defineEventHandler(async (event) => {
   const user = await requireUser(event)
   // The studio is checked before the rest of the body, so a stranger learns nothing from errors.
-  const { studioId } = await readValid(event, studioQuery)
-  await requireStudioRole(event, studioId, 'designer')
+  const { studioId } = await readValid(event, studioRef)
+  await studioMember(event, studioId, 'designer')
   const body = await readValid(event, motifCreateBody)
   const motif = await Motif.create({
     studioId, name: body.name, published: body.published ?? false,

@@ -1,4 +1,4 @@
-import { idParams } from '#shared/validation/knit'
+import { idParams } from '#shared/validation/common'
 
 // One piece with the timeline the knit view follows.
 export default defineEventHandler(async (event) => {

@@ -1,4 +1,4 @@
-import { idParams } from '#shared/validation/knit'
+import { idParams } from '#shared/validation/common'
 
 // Projects started from the plan keep their own snapshot.
 export default defineEventHandler(async (event) => {

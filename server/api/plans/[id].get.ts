@@ -1,4 +1,4 @@
-import { idParams } from '#shared/validation/knit'
+import { idParams } from '#shared/validation/common'
 
 // The plan with the engine's numbers per piece, warnings and the yarn estimate against stock.
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,5 @@
-import { idParams } from '#shared/validation/knit'
-import { planPatch } from '#shared/validation/plan'
+import { idParams } from '#shared/validation/common'
+import { planPatch } from '#shared/validation/plans'
 
 // Any field, including `published`; `pieces` replaces every piece.
 export default defineEventHandler(async (event) => {

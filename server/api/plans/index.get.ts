@@ -1,10 +1,10 @@
 import type { PlanSummary } from '#shared/types/plan'
-import { studioQuery } from '#shared/validation/library'
+import { studioRef } from '#shared/validation/common'
 
 // A studio's plans, most recently changed first; knitters see the published ones.
 export default defineEventHandler(async (event): Promise<PlanSummary[]> => {
   await requireUser(event)
-  const { studioId } = queryValid(event, studioQuery)
-  const { membership } = await requireStudioRole(event, studioId)
-  return listPlans(studioId, membership.role)
+  const { studioId } = queryValid(event, studioRef)
+  const { role } = await studioMember(event, studioId)
+  return listPlans(studioId, role)
 })

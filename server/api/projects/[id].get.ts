@@ -1,4 +1,4 @@
-import { idParams } from '#shared/validation/knit'
+import { idParams } from '#shared/validation/common'
 
 export default defineEventHandler(async (event) => {
   await requireUser(event) // 401 before anything about the request is checked

@@ -1,4 +1,4 @@
-import { idParams } from '#shared/validation/knit'
+import { idParams } from '#shared/validation/common'
 import { Swatch } from '../../db/models'
 
 // Designers may delete swatches they measured; plans that used it lose their gauge (warned).

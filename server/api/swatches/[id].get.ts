@@ -1,4 +1,4 @@
-import { idParams } from '#shared/validation/knit'
+import { idParams } from '#shared/validation/common'
 import { Swatch } from '../../db/models'
 
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,5 @@
-import { idParams } from '#shared/validation/knit'
-import { swatchPatch } from '#shared/validation/plan'
+import { idParams } from '#shared/validation/common'
+import { swatchPatch } from '#shared/validation/swatches'
 import { Swatch } from '../../db/models'
 
 export default defineEventHandler(async (event) => {

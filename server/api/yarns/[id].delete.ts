@@ -1,4 +1,4 @@
-import { idParams } from '#shared/validation/knit'
+import { idParams } from '#shared/validation/common'
 import { Yarn } from '../../db/models'
 
 // The owner's: swatches that named the yarn keep their measures; projects keep their own copy.

@@ -1,5 +1,5 @@
-import { idParams } from '#shared/validation/knit'
-import { yarnPatch } from '#shared/validation/plan'
+import { idParams } from '#shared/validation/common'
+import { yarnPatch } from '#shared/validation/yarns'
 import { Yarn } from '../../db/models'
 
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,5 @@
 import { Op } from 'sequelize'
-import { invitationAcceptBody, tokenParams } from '#shared/validation/auth'
+import { invitationAcceptBody, tokenParams } from '#shared/validation/invitations'
 import { Invitation, Membership, User } from '../../../db/models'
 
 // Single use: the invitation row is locked, checked and marked accepted in one transaction.

@@ -1,5 +1,5 @@
 import { Op } from 'sequelize'
-import { tokenParams } from '#shared/validation/auth'
+import { tokenParams } from '#shared/validation/invitations'
 import { Invitation, Studio, User } from '../../../db/models'
 
 // Anyone holding the link may read what it offers; the token itself is the secret.

@@ -1,10 +1,11 @@
-import { motifDuplicateBody, motifIdParams } from '#shared/validation/motif'
+import { idParams } from '#shared/validation/common'
+import { motifDuplicateBody } from '#shared/validation/motifs'
 import { Motif } from '../../../db/models'
 
 // A copy to change without touching the original: a draft, without the original picture.
 export default defineEventHandler(async (event) => {
   const user = await requireUser(event)
-  const { id } = paramsValid(event, motifIdParams)
+  const { id } = paramsValid(event, idParams)
   const { motif } = await requireMotif(event, id, 'designer')
   const body = await readValid(event, motifDuplicateBody)
   const copy = await Motif.create({

@@ -1,11 +1,12 @@
 import { motifToCsv, motifToJson } from '#shared/motif/file'
-import { motifExportQuery, motifIdParams } from '#shared/validation/motif'
+import { idParams } from '#shared/validation/common'
+import { motifExportQuery } from '#shared/validation/motifs'
 import { motifChart } from '../../../db/motifs'
 
 // The motif as a file: our JSON format, CSV of 0/1, or a PNG picture (README, "Motif file format").
 export default defineEventHandler(async (event) => {
   await requireUser(event)
-  const { id } = paramsValid(event, motifIdParams)
+  const { id } = paramsValid(event, idParams)
   const { format } = queryValid(event, motifExportQuery)
   const { motif } = await requireMotif(event, id)
   const chart = motifChart(motif)

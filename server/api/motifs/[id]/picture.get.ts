@@ -1,9 +1,9 @@
-import { motifIdParams } from '#shared/validation/motif'
+import { idParams } from '#shared/validation/common'
 
 // The original picture a motif was made from, byte for byte, to whoever may see the motif.
 export default defineEventHandler(async (event) => {
   await requireUser(event)
-  const { id } = paramsValid(event, motifIdParams)
+  const { id } = paramsValid(event, idParams)
   const { motif } = await requireMotif(event, id)
   const bytes = motif.pictureType ? await readPicture(motif.id) : null
   if (!bytes || !motif.pictureType) throw createError({ statusCode: 404, message: 'This motif has no picture' })

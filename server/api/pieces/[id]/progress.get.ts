@@ -1,4 +1,4 @@
-import { idParams } from '#shared/validation/knit'
+import { idParams } from '#shared/validation/common'
 
 // The piece's synced place only: cheap enough to ask often.
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,5 @@
-import { idParams } from '#shared/validation/knit'
-import { planProjectBody } from '#shared/validation/plan'
+import { idParams } from '#shared/validation/common'
+import { planProjectBody } from '#shared/validation/plans'
 
 // Any member who can see the published plan starts a project from it and knits it.
 export default defineEventHandler(async (event) => {

@@ -1,5 +1,4 @@
-import { resetRequestBody } from '#shared/validation/auth'
-import { idParams } from '#shared/validation/knit'
+import { emailBody, idParams } from '#shared/validation/common'
 
 // A designer shares a published plan with someone outside the studio: they are invited as a
 // knitter (so they see the studio's published plans, and only those) and land on this plan.
@@ -7,7 +6,7 @@ export default defineEventHandler(async (event) => {
   await requireUser(event)
   const { id } = paramsValid(event, idParams)
   const { user, plan } = await requirePlan(event, id, 'designer')
-  const { email } = await readValid(event, resetRequestBody)
+  const { email } = await readValid(event, emailBody)
   if (!plan.published) throw createError({ statusCode: 409, message: 'Publish the plan before sharing it' })
   const invitation = await inviteToStudio(event, {
     studioId: plan.studioId, email, role: 'knitter', invitedBy: user,

@@ -1,14 +1,14 @@
 import { Op } from 'sequelize'
-import { studioParams } from '#shared/validation/auth'
+import { studioRef } from '#shared/validation/common'
 import { Invitation, Membership, User } from '../../../../db/models'
 
 // Members of a studio for any member; their e-mail addresses and the pending invitations only
 // for owners (who invite and remove people), names and roles for everyone else.
 export default defineEventHandler(async (event) => {
   await requireUser(event) // 401 before anything about the request is checked
-  const { studioId } = paramsValid(event, studioParams)
-  const { membership } = await requireStudioRole(event, studioId)
-  const owner = membership.role === 'owner'
+  const { studioId } = paramsValid(event, studioRef)
+  const { role } = await studioMember(event, studioId)
+  const owner = role === 'owner'
   const rows = await Membership.findAll({ where: { studioId }, include: [{ model: User, attributes: ['id', 'name', 'email'] }], order: [['createdAt', 'ASC']] })
   const members = rows.map((m) => {
     const u = (m as Membership & { User: User }).User

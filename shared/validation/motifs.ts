@@ -1,11 +1,9 @@
 import { z } from 'zod'
 import { chartFromRows, KnittingInputError } from '#shared/engine'
-import { idParam, nameSchema } from './auth'
-
 import { MAX_IMPORT_CHARS, MOTIF_LIMITS, motifSorts } from '#shared/motif/limits'
+import { idParam, nameSchema } from './common'
 
-export { MAX_IMPORT_CHARS, MOTIF_LIMITS, PICTURE_UPLOAD } from '#shared/motif/limits'
-
+// Counts come from queries and form fields as text too: coerced, unlike common's `count`.
 const count = (min: number, max: number) => z.coerce.number('must be a number').int('must be a whole number')
   .min(min, `must be at least ${min}`).max(max, `must be at most ${max}`)
 
@@ -33,10 +31,6 @@ export const chartRows = z.array(z.string('must be text'), 'must be a list of ro
       ctx.addIssue({ code: 'custom', path: e.row ? [e.row - 1] : [], message: e.message.replace(/^chart /, ''), params: { row: e.row, col: e.col } })
     }
   })
-
-export const motifIdParams = z.object({ id: idParam })
-
-export { motifSorts, type MotifSort } from '#shared/motif/limits'
 
 /** `GET /api/motifs`: a page of a studio's library. `longest` sorts by the longer float of either yarn. */
 export const motifListQuery = z.object({

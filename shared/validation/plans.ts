@@ -1,85 +1,12 @@
 import { z } from 'zod'
 import { MAX_PLAN_ROWS } from '#shared/engine/rows'
 import { copySuffix, longestPieceName } from '#shared/piece/copies'
-import { nameSchema } from './auth'
+import { count, id, lengthUnit, nameSchema, notes, stored } from './common'
 
-// Machines, yarn stock, swatches and plans: bodies of the planner routes. Create bodies
-// carry studioId; patch bodies are the same fields, all optional (studioId never moves).
+// Plans: a create body carries studioId; a patch body is the same fields, all optional (studioId never moves).
 
-const id = z.number('must be a number').int('must be a whole number').positive('must be a positive id').max(2 ** 31)
-const count = (min: number, max: number) => z.number('must be a number').int('must be a whole number')
-  .min(min, `must be at least ${min}`).max(max, `must be at most ${max}`)
 const positive = (max: number) => z.number('must be a number').positive('must be more than 0').max(max, `must be at most ${max}`)
-/**
- * A measure kept in a DECIMAL column with `decimals` places: anything smaller than one step
- * would be stored as 0 and later divided by (a swatch 0 cm high has no gauge).
- */
-const stored = (max: number, decimals: 1 | 2) => {
-  const step = decimals === 1 ? 0.1 : 0.01
-  return z.number('must be a number').min(step, `must be at least ${step} (it is kept to ${decimals} decimal place${decimals === 1 ? '' : 's'})`)
-    .max(max, `must be at most ${max}`)
-}
-const notes = z.string('must be text').max(5000, 'must be at most 5000 characters')
-const technique = z.enum(['together', 'colour-by-colour'], 'must be "together" or "colour-by-colour"')
-export const lengthUnit = z.enum(['cm', 'in'], 'must be "cm" or "in"')
 const slot = z.string('must be a slot letter').regex(/^[A-F]$/, 'must be a slot letter A–F')
-
-const machineFields = {
-  name: nameSchema,
-  needlePitchMm: stored(50, 2),
-  needles: count(1, 1000),
-  patterningWidth: count(1, 200),
-  technique,
-  passesPerColour: count(1, 8),
-  notes,
-}
-export const machineBody = z.object({ studioId: id, ...machineFields, technique: technique.default('together'), passesPerColour: count(1, 8).default(2), notes: notes.default('') })
-export const machinePatch = z.object(machineFields).partial()
-export type MachineBody = z.infer<typeof machineBody>
-export type MachinePatch = z.infer<typeof machinePatch>
-
-const yarnFields = {
-  name: nameSchema,
-  hex: z.string('must be text').regex(/^#[0-9a-fA-F]{6}$/, 'must be a colour like #1a2b3c').transform(s => s.toLowerCase()),
-  weightCategory: count(0, 7),
-  metresPer100g: stored(100000, 1),
-  gramsOnHand: z.number('must be a number').min(0, 'must be at least 0').max(1000000, 'must be at most 1000000'),
-  notes,
-}
-export const yarnBody = z.object({ studioId: id, ...yarnFields, gramsOnHand: yarnFields.gramsOnHand.default(0), notes: notes.default('') })
-export const yarnPatch = z.object(yarnFields).partial()
-export type YarnBody = z.infer<typeof yarnBody>
-export type YarnPatch = z.infer<typeof yarnPatch>
-
-const swatchFields = {
-  machineId: id.nullable(),
-  stitchSize: z.string('must be text').trim().max(60, 'must be at most 60 characters'),
-  mainYarnId: id.nullable(),
-  contrastYarnId: id.nullable(),
-  stitches: count(1, 1000),
-  rows: count(1, 5000),
-  width: stored(1000, 2),
-  height: stored(1000, 2),
-  unit: lengthUnit,
-  grams: stored(100000, 2).nullable(),
-  washed: z.boolean('must be true or false'),
-  notes,
-}
-export const swatchBody = z.object({
-  studioId: id,
-  ...swatchFields,
-  machineId: swatchFields.machineId.default(null),
-  stitchSize: swatchFields.stitchSize.default(''),
-  mainYarnId: swatchFields.mainYarnId.default(null),
-  contrastYarnId: swatchFields.contrastYarnId.default(null),
-  grams: swatchFields.grams.default(null),
-  washed: swatchFields.washed.default(false),
-  notes: notes.default(''),
-})
-export const swatchPatch = z.object(swatchFields).partial()
-export type SwatchBody = z.infer<typeof swatchBody>
-export type SwatchPatch = z.infer<typeof swatchPatch>
-
 const label = z.string('must be text').trim().max(120, 'must be at most 120 characters').optional()
 const rows = count(1, MAX_PLAN_ROWS)
 const lengthCm = positive(1000)

@@ -1,36 +1,7 @@
 import { z } from 'zod'
 import { MAX_PLAN_ROWS } from '#shared/engine/rows'
 import { rowEventKinds } from '#shared/piece/types'
-import { idParam, nameSchema } from './auth'
-
-const id = z.number('must be a number').int('must be a whole number').positive('must be a positive id').max(2 ** 31)
-const count = (min: number, max: number) => z.number('must be a number').int('must be a whole number')
-  .min(min, `must be at least ${min}`).max(max, `must be at most ${max}`)
-
-export const idParams = z.object({ id: idParam })
-
-/** The quick "new project" form (a project without a plan): one motif between two plain borders. */
-export const newProjectBody = z.object({
-  studioId: id,
-  name: nameSchema,
-  motifId: id,
-  borderBefore: count(0, MAX_PLAN_ROWS),
-  borderAfter: count(0, MAX_PLAN_ROWS),
-  chartRows: count(1, MAX_PLAN_ROWS),
-  needles: count(1, 1000),
-  technique: z.enum(['together', 'colour-by-colour'], 'must be "together" or "colour-by-colour"'),
-  passesPerColour: count(1, 4).optional(),
-  mainYarnId: id,
-  contrastYarnId: id,
-  machineId: id.nullable().optional(),
-  pieces: z.array(z.object({ name: nameSchema }), 'must be a list of pieces')
-    .min(1, 'at least one piece').max(12, 'at most 12 pieces'),
-  notes: z.string().max(5000, 'must be at most 5000 characters').optional(),
-}).refine(b => b.mainYarnId !== b.contrastYarnId, { path: ['contrastYarnId'], message: 'must be a different yarn from the main yarn' })
-export type NewProjectBody = z.infer<typeof newProjectBody>
-
-/** Only the studio, read first so the role check comes before the rest of the form is judged. */
-export const studioRef = z.object({ studioId: id })
+import { count, id } from './common'
 
 export const deviceIdSchema = z.string('must be text').regex(/^[A-Za-z0-9_-]{8,64}$/, 'must be 8–64 letters, digits, "_" or "-"')
 const rowCount = count(0, MAX_PLAN_ROWS)
