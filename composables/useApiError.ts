@@ -21,3 +21,12 @@ export function describeApiError(error: unknown): { message: string; fields: Rec
   if (fetchError.statusCode >= 500) return { message: 'Something went wrong on our side. Try again in a moment.', fields }
   return { message: body?.message ?? fetchError.statusMessage ?? 'That did not work.', fields }
 }
+
+/**
+ * The copy a 409 "changed elsewhere" answer carries (`data.current`: the motif or plan as it is
+ * now, after someone else's save), or undefined for any other failure.
+ */
+export function changedElsewhereCopy<T>(error: unknown): T | undefined {
+  const fetchError = error as FetchError<{ data?: { current?: T } }>
+  return fetchError?.statusCode === 409 ? fetchError.data?.data?.current ?? undefined : undefined
+}

@@ -79,6 +79,8 @@ export function useMotifEditor(initialRows: string[], options: { historyLimit?: 
     canUndo: computed(() => history.value.past.length > 0),
     canRedo: computed(() => history.value.future.length > 0),
     beginStroke, paint, endStroke, undo, redo, load,
+    /** Replace by other rows (another copy of the motif) as one undoable step. */
+    take: (rows: string[]) => { endStroke(); apply(chartFromRows(rows)) },
     invert: () => apply(invertChart(chart.value)),
     mirror: () => apply(mirrorChart(chart.value)),
     shiftBy: (right: number, up: number) => apply(shiftChart(chart.value, right, up)),

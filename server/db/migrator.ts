@@ -6,6 +6,7 @@ import * as m0003 from './migrations/0003-projects'
 import * as m0004 from './migrations/0004-motif-library'
 import * as m0005 from './migrations/0005-planner'
 import * as m0006 from './migrations/0006-sessions-and-mail'
+import * as m0007 from './migrations/0007-edit-versions'
 
 // Listed by hand (no file glob) so the bundled server and scripts find the same set.
 // Append new migrations; never edit one that has shipped.
@@ -16,6 +17,7 @@ const migrations = [
   { name: '0004-motif-library', ...m0004 },
   { name: '0005-planner', ...m0005 },
   { name: '0006-sessions-and-mail', ...m0006 },
+  { name: '0007-edit-versions', ...m0007 },
 ]
 
 export function createMigrator(sequelize: Sequelize) {

@@ -1,6 +1,6 @@
 import type { H3Event } from 'h3'
 import { PNG } from 'pngjs'
-import { Op, type Order, type WhereOptions } from 'sequelize'
+import { Op, type Attributes, type Order, type WhereOptions } from 'sequelize'
 import { chartToRows, type Chart } from '#shared/engine'
 import type { MotifDetail, MotifListItem, MotifPage, MotifPerson } from '#shared/types/motif'
 import type { StudioRole } from '#shared/types/studio'
@@ -45,12 +45,29 @@ export function motifDetail(motif: Motif): MotifDetail {
     updatedBy: person(motif.editor),
     createdAt: motif.createdAt.toISOString(),
     updatedAt: motif.updatedAt.toISOString(),
+    version: motif.version,
   }
 }
 
 /** A motif with its people loaded, as the API answers it. */
 export async function loadMotifDetail(id: number): Promise<MotifDetail> {
   return motifDetail((await Motif.findByPk(id, { include: people, rejectOnEmpty: true })))
+}
+
+/**
+ * Applies a change made from version `expected` (undefined: from whatever the motif is now) and
+ * answers the motif exactly as this change left it. A motif that has moved on since is a 409
+ * carrying the current copy; nothing is saved.
+ */
+export async function updateMotif(id: number, expected: number | undefined, changes: Partial<Attributes<Motif>>): Promise<MotifDetail> {
+  const saved = await useDb().transaction(async (transaction) => {
+    if (!(await updateAtVersion(Motif, id, expected, changes, transaction))) return null
+    return Motif.findByPk(id, { include: people, transaction, rejectOnEmpty: true })
+  })
+  if (saved) return motifDetail(saved)
+  const current = await Motif.findByPk(id, { include: people })
+  if (!current) throw createError({ statusCode: 404, message: 'Motif not found' })
+  throw changedElsewhere('motif', motifDetail(current))
 }
 
 // Main colour light, contrast colour dark: the way a drawn chart is read.

@@ -72,14 +72,23 @@ export async function createPlan(body: PlanBody, userId: number): Promise<number
   })
 }
 
-export async function updatePlan(plan: Plan, body: PlanPatch, userId: number) {
+/**
+ * Applies a change made from version `expected` (undefined: from whatever the plan is now) and
+ * answers the plan exactly as this change left it, as its designers see it. A plan that has
+ * moved on since is a 409 carrying the current copy; nothing is saved.
+ */
+export async function updatePlan(id: number, body: Omit<PlanPatch, 'version'>, userId: number, expected: number | undefined): Promise<PlanDetail> {
   const { pieces, ...fields } = body
-  await useDb().transaction(async (transaction) => {
-    await plan.update({ ...fields, updatedBy: userId }, { transaction })
-    if (pieces) await writePieces(plan.id, pieces, transaction)
-    plan.changed('updatedAt', true)
-    await plan.save({ transaction })
+  const saved = await useDb().transaction(async (transaction) => {
+    // The plan row first: it stays locked until the pieces are written and read back.
+    if (!(await updateAtVersion(Plan, id, expected, { ...fields, updatedBy: userId }, transaction))) return null
+    if (pieces) await writePieces(id, pieces, transaction)
+    return Plan.findByPk(id, { include: planWithPieces, transaction, rejectOnEmpty: true })
   })
+  if (saved) return planDetail(saved, 'designer')
+  const current = await Plan.findByPk(id, { include: planWithPieces })
+  if (!current) throw createError({ statusCode: 404, message: 'Plan not found' })
+  throw changedElsewhere('plan', await planDetail(current, 'designer'))
 }
 
 /**
@@ -208,6 +217,7 @@ export async function planDetail(plan: Plan, viewer: StudioRole): Promise<PlanDe
   })
   return {
     ...planSummary(plan),
+    version: plan.version,
     notes: plan.notes,
     pieces,
     gauge: inp.swatch ? swatchGauge(inp.swatch) : null,

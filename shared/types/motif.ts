@@ -55,6 +55,12 @@ export interface MotifDetail {
   updatedBy: MotifPerson | null
   createdAt: string
   updatedAt: string
+  /**
+   * Bumped by every change. Send it back with a change (`version` in the PATCH body or
+   * `If-Match: "<version>"`): if the motif has moved on since, the answer is a 409 whose
+   * `data.current` is the motif as it is now, and nothing is saved.
+   */
+  version: number
 }
 
 /** `POST /api/motifs/picture-preview`: the chart a picture would make, nothing stored. */

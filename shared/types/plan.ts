@@ -120,6 +120,12 @@ export interface PlanYarnNeed {
 }
 
 export interface PlanDetail extends PlanSummary {
+  /**
+   * Bumped by every change. Send it back with a change (`version` in the PATCH body or
+   * `If-Match: "<version>"`): if the plan has moved on since, the answer is a 409 whose
+   * `data.current` is the plan as it is now, and nothing is saved.
+   */
+  version: number
   notes: string
   pieces: PlanPiece[]
   /** Gauge of the plan's swatch, null without one. */

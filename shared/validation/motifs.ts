@@ -1,7 +1,7 @@
 import { z } from 'zod'
 import { chartFromRows, KnittingInputError } from '#shared/engine'
 import { MAX_IMPORT_CHARS, MOTIF_LIMITS, motifSorts } from '#shared/motif/limits'
-import { idParam, nameSchema } from './common'
+import { editVersion, idParam, nameSchema } from './common'
 
 // Counts come from queries and form fields as text too: coerced, unlike common's `count`.
 const count = (min: number, max: number) => z.coerce.number('must be a number').int('must be a whole number')
@@ -60,6 +60,8 @@ export const motifPatchBody = z.object({
   name: nameSchema.optional(),
   rows: chartRows.optional(),
   published: z.boolean('must be true or false').optional(),
+  /** The version the change was made from: a 409 with the current motif when it has moved on. */
+  version: editVersion.optional(),
 }).refine(b => b.name !== undefined || b.rows !== undefined || b.published !== undefined, { message: 'nothing to change: send name, rows or published' })
 export type MotifPatchBody = z.infer<typeof motifPatchBody>
 

@@ -1,7 +1,7 @@
 import { z } from 'zod'
 import { MAX_PLAN_ROWS } from '#shared/engine/rows'
 import { copySuffix, longestPieceName } from '#shared/piece/copies'
-import { count, id, lengthUnit, nameSchema, notes, stored } from './common'
+import { count, editVersion, id, lengthUnit, nameSchema, notes, stored } from './common'
 
 // Plans: a create body carries studioId; a patch body is the same fields, all optional (studioId never moves).
 
@@ -83,8 +83,11 @@ export const planBody = z.object({
   published: planFields.published.default(false),
   notes: notes.default(''),
 })
-/** A patch replaces whole fields: `pieces` given replaces every piece. */
-export const planPatch = z.object(planFields).partial()
+/**
+ * A patch replaces whole fields: `pieces` given replaces every piece. `version` is the one the
+ * change was made from: a 409 with the current plan when it has moved on.
+ */
+export const planPatch = z.object(planFields).partial().extend({ version: editVersion.optional() })
 export type PlanBody = z.infer<typeof planBody>
 export type PlanPatch = z.infer<typeof planPatch>
 

@@ -101,7 +101,7 @@ export const roleMatrix: Row[] = [
   { route: 'POST /api/motifs', call: f => ({ method: 'POST', path: '/api/motifs', body: { studioId: f.studio.id, name: 'Matrix motif', rows: ['x.', '.x'] } }), expect: studioDesigner(201) },
   // A published motif each time: knitters see it, so their edits are refused (403), not hidden (404).
   { route: 'GET /api/motifs/[id]', call: async f => ({ method: 'GET', path: `/api/motifs/${(await publishedMotif(f)).id}` }), expect: studioMember(200) },
-  { route: 'PATCH /api/motifs/[id]', call: async f => ({ method: 'PATCH', path: `/api/motifs/${(await publishedMotif(f)).id}`, body: { name: 'Renamed' } }), expect: studioDesigner(200) },
+  { route: 'PATCH /api/motifs/[id]', call: async f => ({ method: 'PATCH', path: `/api/motifs/${(await publishedMotif(f)).id}`, body: { name: 'Renamed', version: 0 } }), expect: studioDesigner(200) },
   { route: 'DELETE /api/motifs/[id]', call: async f => ({ method: 'DELETE', path: `/api/motifs/${(await publishedMotif(f)).id}` }), expect: studioDesigner(204) },
   { route: 'POST /api/motifs/[id]/duplicate', call: async f => ({ method: 'POST', path: `/api/motifs/${(await publishedMotif(f)).id}/duplicate` }), expect: studioDesigner(201) },
   { route: 'GET /api/motifs/[id]/export', call: async f => ({ method: 'GET', path: `/api/motifs/${(await publishedMotif(f)).id}/export?format=csv` }), expect: studioMember(200) },
@@ -139,7 +139,7 @@ export const roleMatrix: Row[] = [
   { route: 'POST /api/plans', call: async f => ({ method: 'POST', path: '/api/plans', body: await planner.planBody(f) }), expect: studioDesigner(201) },
   // A published plan each time: knitters see it, so their edits are refused (403), not hidden (404).
   { route: 'GET /api/plans/[id]', call: async f => ({ method: 'GET', path: `/api/plans/${await planner.publishedPlan(f)}` }), expect: studioMember(200) },
-  { route: 'PATCH /api/plans/[id]', call: async f => ({ method: 'PATCH', path: `/api/plans/${await planner.publishedPlan(f)}`, body: { name: 'Renamed plan' } }), expect: studioDesigner(200) },
+  { route: 'PATCH /api/plans/[id]', call: async f => ({ method: 'PATCH', path: `/api/plans/${await planner.publishedPlan(f)}`, body: { name: 'Renamed plan', version: 0 } }), expect: studioDesigner(200) },
   { route: 'DELETE /api/plans/[id]', call: async f => ({ method: 'DELETE', path: `/api/plans/${await planner.publishedPlan(f)}` }), expect: studioDesigner(204) },
   { route: 'POST /api/plans/[id]/share', call: async f => ({ method: 'POST', path: `/api/plans/${await planner.publishedPlan(f)}/share`, body: { email: uniqueEmail('matrix-share') } }), expect: studioDesigner(201) },
   { route: 'POST /api/plans/[id]/projects', call: async f => ({ method: 'POST', path: `/api/plans/${await planner.publishedPlan(f)}/projects`, body: {} }), expect: studioMember(201) },

@@ -5,5 +5,6 @@ export default defineEventHandler(async (event) => {
   await requireUser(event)
   const { id } = paramsValid(event, idParams)
   const { plan, role } = await requirePlan(event, id)
+  setVersionTag(event, plan.version)
   return planDetail(plan, role)
 })

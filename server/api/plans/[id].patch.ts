@@ -1,13 +1,15 @@
 import { idParams } from '#shared/validation/common'
 import { planPatch } from '#shared/validation/plans'
 
-// Any field, including `published`; `pieces` replaces every piece.
+// Any field, including `published`; `pieces` replaces every piece. Made from an old version
+// (body `version`, else `If-Match`) it is a 409 with the current plan, and nothing is saved.
 export default defineEventHandler(async (event) => {
   const user = await requireUser(event)
   const { id } = paramsValid(event, idParams)
   const { plan } = await requirePlan(event, id, 'designer')
-  const body = await readValid(event, planPatch)
+  const { version, ...body } = await readValid(event, planPatch)
   await checkPlanRefs(plan.studioId, body)
-  await updatePlan(plan, body, user.id)
-  return loadPlanDetail(plan.id)
+  const saved = await updatePlan(plan.id, body, user.id, expectedVersion(event, version))
+  setVersionTag(event, saved.version)
+  return saved
 })

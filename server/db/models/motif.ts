@@ -19,6 +19,8 @@ export class Motif extends Model<InferAttributes<Motif>, InferCreationAttributes
   declare longestFloat: CreationOptional<number | null>
   /** MIME type of the kept original picture, or null when there is none. */
   declare pictureType: CreationOptional<string | null>
+  /** Bumped by every change, in the UPDATE that checks it (server/utils/editVersions.ts). */
+  declare version: CreationOptional<number>
   declare createdBy: number | null
   declare updatedBy: number | null
   declare createdAt: CreationOptional<Date>
@@ -42,6 +44,7 @@ export class Motif extends Model<InferAttributes<Motif>, InferCreationAttributes
       verdict: { type: DataTypes.ENUM('tidy', 'moderate', 'long'), allowNull: true },
       longestFloat: { type: DataTypes.SMALLINT.UNSIGNED, allowNull: true },
       pictureType: { type: DataTypes.STRING(16), allowNull: true },
+      version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
       createdBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
       updatedBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
       createdAt: DataTypes.DATE(3),

@@ -14,6 +14,8 @@ export class Plan extends Model<InferAttributes<Plan>, InferCreationAttributes<P
   declare floatLimit: CreationOptional<number>
   declare published: CreationOptional<boolean>
   declare notes: CreationOptional<string>
+  /** Bumped by every change, in the UPDATE that checks it (server/utils/editVersions.ts). */
+  declare version: CreationOptional<number>
   declare createdBy: number | null
   declare updatedBy: number | null
   declare createdAt: CreationOptional<Date>
@@ -36,6 +38,7 @@ export class Plan extends Model<InferAttributes<Plan>, InferCreationAttributes<P
       floatLimit: { type: DataTypes.TINYINT.UNSIGNED, allowNull: false, defaultValue: 5 },
       published: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
       notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
+      version: { type: DataTypes.INTEGER.UNSIGNED, allowNull: false, defaultValue: 0 },
       createdBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
       updatedBy: { type: DataTypes.INTEGER.UNSIGNED, allowNull: true },
       createdAt: DataTypes.DATE(3),
