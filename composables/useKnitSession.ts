@@ -1,4 +1,4 @@
-import { recordStep, resolveConflict, savePiece, StepError, type CachedPiece, type LocalProgress } from '~~/service'
+import { recordStep, resolveConflict, savePiece, StepError, type CachedPiece, type LocalProgress } from '~~/offline'
 import { compilePieceTimeline } from '#shared/piece/timeline'
 import { cuesForStep, knitPosition } from '#shared/piece/position'
 import { describeDuration, msPerRow, type PaceStep } from '#shared/piece/pace'

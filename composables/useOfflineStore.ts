@@ -1,4 +1,4 @@
-import { clearPersonalCaches, createSyncer, deleteUserStore, forgetUserStoreUnlessQueued, openUserStore } from '~~/service'
+import { clearPersonalCaches, createSyncer, deleteUserStore, forgetUserStoreUnlessQueued, openUserStore } from '~~/offline'
 
 /** The signed-in person's offline store and syncer (opened on first use). */
 export function useOfflineStore() {

@@ -1,4 +1,4 @@
-import type { UnsyncedSummary } from '~~/service'
+import type { UnsyncedSummary } from '~~/offline'
 
 /** How long sign-out waits for queued steps to go before it asks instead. */
 const syncWaitMs = 10_000
@@ -17,7 +17,7 @@ export function useSignOut() {
   const busy = ref(false)
 
   async function stepsLeftAfterSync(userId: number): Promise<UnsyncedSummary> {
-    const code = await import('~~/service')
+    const code = await import('~~/offline')
     const { db, syncer } = $offline.open(userId, code)
     await Promise.race([syncer.flush(), new Promise(resolve => setTimeout(resolve, syncWaitMs))])
     return code.summariseUnsynced(db)

@@ -1,4 +1,4 @@
-import type { clearPersonalCaches, createSyncer, deleteUserStore, forgetUserStoreUnlessQueued, openUserStore, FloatwiseDb, SyncState, Syncer } from '~~/service'
+import type { clearPersonalCaches, createSyncer, deleteUserStore, forgetUserStoreUnlessQueued, openUserStore, FloatwiseDb, SyncState, Syncer } from '~~/offline'
 
 /** The parts of `~~/service` that open and remove the store; passed in so this plugin imports none of it. */
 export interface OfflineStoreCode {
@@ -9,7 +9,7 @@ export interface OfflineStoreCode {
   clearPersonalCaches: typeof clearPersonalCaches
 }
 
-const loadCode = (): Promise<OfflineStoreCode> => import('~~/service')
+const loadCode = (): Promise<OfflineStoreCode> => import('~~/offline')
 
 // The offline store and its syncer, one per signed-in person on this device (two people
 // sharing a tablet never see each other's queued rows). Client only: IndexedDB.

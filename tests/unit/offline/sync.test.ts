@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest'
-import { backoffDelay, createSyncer, retryAfterMs, readPieceState, recordStep, resolveConflict, type FloatwiseDb, type SyncState } from '../../../service'
+import { backoffDelay, createSyncer, retryAfterMs, readPieceState, recordStep, resolveConflict, type FloatwiseDb, type SyncState } from '../../../offline'
 import { deviceWithPiece, fakeSyncServer, type FakeSyncServer } from './helpers'
 
 async function advance(db: FloatwiseDb, count: number, totalRows = 10_000) {

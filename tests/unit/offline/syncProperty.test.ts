@@ -1,6 +1,6 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import { createSyncer, readPieceState, recordStep } from '../../../service'
+import { createSyncer, readPieceState, recordStep } from '../../../offline'
 import { deviceWithPiece, fakeSyncServer, type FakeFailure } from './helpers'
 
 const totalRows = 40

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { IDBFactory, IDBKeyRange } from 'fake-indexeddb'
-import { deleteUserStore, forgetUserStoreUnlessQueued, openUserStore, recordStep, savePiece, summariseUnsynced } from '../../../service'
+import { deleteUserStore, forgetUserStoreUnlessQueued, openUserStore, recordStep, savePiece, summariseUnsynced } from '../../../offline'
 import { pieceDetail } from './helpers'
 
 // One simulated tablet per test: its own IndexedDB factory.

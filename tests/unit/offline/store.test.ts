@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { reactive } from 'vue'
 import { IDBFactory, IDBKeyRange } from 'fake-indexeddb'
-import { getDeviceId, openFloatwiseDb, readPieceState, recordStep, savePiece, StepError } from '../../../service'
+import { getDeviceId, openFloatwiseDb, readPieceState, recordStep, savePiece, StepError } from '../../../offline'
 import { deviceWithPiece, freshDb, pieceDetail, plainTimeline } from './helpers'
 
 describe('the database', () => {
