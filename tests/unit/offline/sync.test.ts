@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest'
 import { backoffDelay, createSyncer, retryAfterMs, readPieceState, recordStep, resolveConflict, type FloatwiseDb, type SyncState } from '../../../offline'
-import { deviceWithPiece, fakeSyncServer, type FakeSyncServer } from './helpers'
+import { deviceWithPiece, fakeSyncServer, type FakeSyncServer } from '../../support/offline'
 
 async function advance(db: FloatwiseDb, count: number, totalRows = 10_000) {
   const ids: string[] = []
