@@ -6,6 +6,7 @@ import { initModels } from '../../server/db/models'
 import { getDeviceId } from '../../offline'
 import { privateMariadb } from '../../scripts/lib/mariadb.mjs'
 import { keptSecret } from '../../scripts/lib/secrets.mjs'
+import { typescriptRun } from '../../scripts/lib/typescript.mjs'
 import { freePort, root, startAppServer } from '../support/appServer'
 import { auditSoak, type Audit } from './audit'
 import { openDevice, type Device, type RequestLog } from './device'
@@ -73,7 +74,10 @@ export async function runSoak(options: SoakOptions): Promise<SoakReport> {
   mariadb.stop() // one left by a run that was killed: it may be on another port
   await mariadb.start()
   const url = mariadb.ensureDatabase('floatwise_soak', 'floatwise', keptSecret(join(root, '.data/db-password')), { fresh: true })
-  const migrated = spawnSync(process.execPath, ['--import', 'jiti/register', join(root, 'scripts/db.ts'), 'migrate'], { cwd: root, env: { ...process.env, DATABASE_URL: url }, encoding: 'utf8' })
+  // With the #shared alias, as the set-up runs it: under vitest (tests/integration/soak.test.ts)
+  // no JITI_ALIAS comes from scripts/soak.mjs.
+  const migrate = typescriptRun(root, 'scripts/db.ts')
+  const migrated = spawnSync(process.execPath, [...migrate.args, 'migrate'], { cwd: root, env: { ...process.env, ...migrate.env, DATABASE_URL: url }, encoding: 'utf8' })
   if (migrated.status !== 0) throw new Error(`migrations failed:\n${migrated.stderr}`)
   const sequelize = createSequelize(url)
   initModels(sequelize)
