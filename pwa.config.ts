@@ -1,12 +1,12 @@
 import type { ModuleOptions } from '@vite-pwa/nuxt'
 
-// Installable app and offline shell. The service worker is our own (service/sw.ts, built
+// Installable app and offline shell. The service worker is our own (service-worker/sw.ts, built
 // with injectManifest): it precaches the app shell, fonts, icons and sounds, answers every
 // page navigation with the prerendered shell, and never touches /api/ (the knitter's place
 // lives in IndexedDB; the server is reached only through the sync outbox).
 export const pwa: Partial<ModuleOptions> = {
   strategies: 'injectManifest',
-  srcDir: 'service',
+  srcDir: 'service-worker',
   filename: 'sw.ts',
   registerType: 'prompt',
   manifest: {

@@ -1,4 +1,4 @@
-import { recordStep, resolveConflict, savePiece, StepError, type CachedPiece, type LocalProgress } from '~~/service'
+import { recordStep, resolveConflict, savePiece, StepError, type CachedPiece, type LocalProgress } from '~~/offline'
 import { compilePieceTimeline } from '#shared/piece/timeline'
 import { cuesForStep, knitPosition } from '#shared/piece/position'
 import { describeDuration, msPerRow, type PaceStep } from '#shared/piece/pace'
@@ -8,23 +8,32 @@ import type { PieceTimeline } from '#shared/piece/types'
 /**
  * One piece at the machine: its timeline, the local place (IndexedDB, live), and the steps.
  * A step is written to IndexedDB (event + place, one transaction) before the screen moves;
- * the syncer sends it when it can.
+ * the syncer sends it when it can. The store is the signed-in person's (stores/offline.ts);
+ * the live queries end with the calling scope (the knit page), or when that store closes.
  */
 export function useKnitSession(pieceId: number) {
-  const { db, syncer, state: syncState } = useOfflineStore()
+  const offline = useOfflineStore()
+  const userId = useAccountStore().me?.user.id
+  if (!userId) throw new Error('The knit view needs a signed-in person')
+  // The knit view opens the store at once (its chunk carries the store's code already).
+  const opening = offline.open(userId)
+  /** This person's store while it is open: it closes when they sign out or their session ends. */
+  const mine = () => (offline.current?.userId === userId ? offline.current : null)
+  const { state: syncState } = storeToRefs(offline)
   const settings = useKnitSettings()
   const sound = useKnitSound(settings)
   const loadError = ref('')
   const stepError = ref('')
   const busy = ref(false)
 
-  const piece = useLiveQuery(() => db.pieces.get(pieceId), undefined as CachedPiece | undefined).value
-  const progress = useLiveQuery(() => db.progress.get(pieceId), undefined as LocalProgress | undefined).value
-  const pending = useLiveQuery(() => db.outbox.where('pieceId').equals(pieceId).count(), 0).value
+  const piece = useLiveQuery(() => mine()?.db, db => db.pieces.get(pieceId), undefined as CachedPiece | undefined).value
+  const progress = useLiveQuery(() => mine()?.db, db => db.progress.get(pieceId), undefined as LocalProgress | undefined).value
+  const pending = useLiveQuery(() => mine()?.db, db => db.outbox.where('pieceId').equals(pieceId).count(), 0).value
 
   // Fetch the piece when online (and keep it for offline); otherwise use the kept copy.
   async function load() {
     loadError.value = ''
+    const { db, syncer } = await opening
     try {
       const detail = await $fetch<PieceDetail>(`/api/pieces/${pieceId}`)
       await savePiece(db, detail)
@@ -51,13 +60,14 @@ export function useKnitSession(pieceId: number) {
   })
 
   async function move(kind: 'advance' | 'back' | 'jump', to: number) {
-    if (!compiled.value || busy.value) return
+    const store = mine()
+    if (!compiled.value || busy.value || !store) return
     busy.value = true
     stepError.value = ''
     const before = completedRows.value
     sound.unlock()
     try {
-      const saved = await recordStep(db, pieceId, { kind, to, totalRows: compiled.value.rows.length })
+      const saved = await recordStep(store.db, pieceId, { kind, to, totalRows: compiled.value.rows.length })
       // Show the committed place at once; the live query catches up (and follows other tabs).
       progress.value = saved.progress
       performance.mark('floatwise:step-saved') // read by the tap benchmark
@@ -65,7 +75,7 @@ export function useKnitSession(pieceId: number) {
         paceSteps.value = [...paceSteps.value.slice(-40), { at: Date.now(), rows: to - before }]
         announce(before, to)
       }
-      void syncer.nudge()
+      void store.syncer.nudge()
     }
     catch (error) {
       stepError.value = error instanceof StepError ? error.message : 'This step could not be saved on the tablet. Try again.'
@@ -95,8 +105,10 @@ export function useKnitSession(pieceId: number) {
   const jump = (to: number) => move('jump', to)
 
   async function resolve(keep: 'ours' | 'theirs') {
-    await resolveConflict(db, pieceId, keep)
-    void syncer.nudge()
+    const store = mine()
+    if (!store) return
+    await resolveConflict(store.db, pieceId, keep)
+    void store.syncer.nudge()
   }
 
   return { piece, progress, pending, position, compiled, timeline, completedRows, finishEstimate, syncState, settings, loadError, stepError, busy, load, advance, undo, jump, resolve, unlockSound: sound.unlock }

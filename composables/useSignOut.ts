@@ -1,4 +1,4 @@
-import type { UnsyncedSummary } from '~~/service'
+import type { UnsyncedSummary } from '~~/offline'
 
 /** How long sign-out waits for queued steps to go before it asks instead. */
 const syncWaitMs = 10_000
@@ -10,24 +10,23 @@ const syncWaitMs = 10_000
  * sign-in page, so the next person finds nothing of them, not even in memory.
  */
 export function useSignOut() {
-  const { $offline } = useNuxtApp()
+  const offline = useOfflineStore()
   const account = useAccountStore()
   /** Set while the warning asks what to do with steps not yet sent. */
   const unsynced = ref<UnsyncedSummary | null>(null)
   const busy = ref(false)
 
   async function stepsLeftAfterSync(userId: number): Promise<UnsyncedSummary> {
-    const code = await import('~~/service')
-    const { db, syncer } = $offline.open(userId, code)
+    const { syncer } = await offline.open(userId)
     await Promise.race([syncer.flush(), new Promise(resolve => setTimeout(resolve, syncWaitMs))])
-    return code.summariseUnsynced(db)
+    return offline.unsynced(userId)
   }
 
   async function leave(userId: number | undefined) {
     let serverStillSignedIn = false
     try { await $fetch('/api/auth/logout', { method: 'POST' }) }
     catch { serverStillSignedIn = true } // offline: the account store sends it when the server answers
-    if (userId) await $offline.discard(userId)
+    if (userId) await offline.discard(userId)
     account.reset({ serverStillSignedIn })
     reloadNuxtApp({ path: '/login', force: true })
   }

@@ -1,4 +1,4 @@
-import { mkdirSync, readdirSync, readFileSync, writeFileSync } from 'node:fs'
+import { mkdirSync, readdirSync, readFileSync, renameSync, writeFileSync } from 'node:fs'
 import { createServer as createHttpServer } from 'node:http'
 import { join } from 'node:path'
 import { randomUUID } from 'node:crypto'
@@ -24,7 +24,10 @@ export async function startMailFake(dir, port = 0) {
           text: mail.text ?? '',
           at: new Date().toISOString(),
         }
-        writeFileSync(`${dir}/${Date.now()}-${randomUUID()}.json`, JSON.stringify(record, null, 2))
+        // Written aside and renamed: a reader of *.json (tests/support/mail.ts) never sees half a file.
+        const name = `${dir}/${Date.now()}-${randomUUID()}`
+        writeFileSync(`${name}.part`, JSON.stringify(record, null, 2))
+        renameSync(`${name}.part`, `${name}.json`)
         callback()
       }, callback)
     },

@@ -5,7 +5,7 @@ import autocannon from 'autocannon'
 import { randomUUID } from 'node:crypto'
 import { afterAll, beforeAll, expect, inject, it } from 'vitest'
 import type { Browser } from 'playwright-core'
-import { createSyncer, openFloatwiseDb, recordStep, savePiece, type PieceDetail } from '../../service'
+import { createSyncer, openFloatwiseDb, recordStep, savePiece, type PieceDetail } from '../../offline'
 import { signedIn, type ApiClient } from '../support/api'
 import { launchBrowser, newTabletContext, signIn } from '../support/browser'
 

@@ -1,6 +1,6 @@
 import { IDBFactory, IDBKeyRange } from 'fake-indexeddb'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { createSyncer, getDeviceId, openFloatwiseDb, readPieceState, recordStep, resolveConflict, savePiece, type FloatwiseDb, type PieceDetail } from '../../service'
+import { createSyncer, getDeviceId, openFloatwiseDb, readPieceState, recordStep, resolveConflict, savePiece, type FloatwiseDb, type PieceDetail } from '../../offline'
 import { Piece, RowEvent } from '../../server/db/models'
 import { apiClient, type ApiClient } from '../support/api'
 import { startAppServer } from '../support/appServer'

@@ -1,5 +1,5 @@
 import { QueryTypes, type Sequelize } from 'sequelize'
-import type { RowEvent } from '../../service'
+import type { RowEvent } from '../../offline'
 
 // The end-of-soak check against the server's log and pieces table.
 

@@ -5,7 +5,7 @@ import { importsOf, root, sourceFiles } from '../support/sourceImports'
 // The app validates nothing itself (the server answers with field errors), so zod stays out of
 // the browser: it would add about 26 KB gzipped to a page, and its eval probe trips our
 // Content-Security-Policy. App code reads limits from zod-free modules (e.g. shared/motif/limits.ts).
-const appFolders = ['pages', 'components', 'composables', 'stores', 'plugins', 'layouts', 'middleware', 'service']
+const appFolders = ['pages', 'components', 'composables', 'stores', 'plugins', 'layouts', 'middleware', 'offline', 'service-worker']
 
 describe('app code', () => {
   it('never reaches zod, directly or through the modules it imports', () => {

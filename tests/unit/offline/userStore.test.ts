@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { IDBFactory, IDBKeyRange } from 'fake-indexeddb'
-import { deleteUserStore, forgetUserStoreUnlessQueued, openUserStore, recordStep, savePiece, summariseUnsynced } from '../../../service'
-import { pieceDetail } from './helpers'
+import { deleteUserStore, forgetUserStoreUnlessQueued, openUserStore, recordStep, savePiece, summariseUnsynced } from '../../../offline'
+import { pieceDetail } from '../../support/offline'
 
 // One simulated tablet per test: its own IndexedDB factory.
 function tablet() {

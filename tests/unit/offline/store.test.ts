@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest'
 import { reactive } from 'vue'
 import { IDBFactory, IDBKeyRange } from 'fake-indexeddb'
-import { getDeviceId, openFloatwiseDb, readPieceState, recordStep, savePiece, StepError } from '../../../service'
-import { deviceWithPiece, freshDb, pieceDetail, plainTimeline } from './helpers'
+import { getDeviceId, openFloatwiseDb, readPieceState, recordStep, savePiece, StepError } from '../../../offline'
+import { deviceWithPiece, freshDb, pieceDetail, plainTimeline } from '../../support/offline'
 
 describe('the database', () => {
   it('makes the device id once and keeps it across reopening', async () => {

@@ -1,7 +1,7 @@
 import { IDBFactory, IDBKeyRange } from 'fake-indexeddb'
 import { applyRowEvent } from '#shared/piece/rowEvent'
-import { openFloatwiseDb, savePiece, type FloatwiseDb, type OpenOptions } from '../../../service'
-import type { PieceDetail, RowEvent, SyncConflict, SyncRequest, SyncResponse } from '../../../service/types'
+import { openFloatwiseDb, savePiece, type FloatwiseDb, type OpenOptions } from '../../offline'
+import type { PieceDetail, RowEvent, SyncConflict, SyncRequest, SyncResponse } from '../../offline/types'
 
 let dbCounter = 0
 

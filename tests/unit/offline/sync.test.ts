@@ -1,6 +1,6 @@
-import { describe, expect, it } from 'vitest'
-import { backoffDelay, createSyncer, retryAfterMs, readPieceState, recordStep, resolveConflict, type FloatwiseDb, type SyncState } from '../../../service'
-import { deviceWithPiece, fakeSyncServer, type FakeSyncServer } from './helpers'
+import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest'
+import { backoffDelay, createSyncer, retryAfterMs, readPieceState, recordStep, resolveConflict, type FloatwiseDb, type SyncState } from '../../../offline'
+import { deviceWithPiece, fakeSyncServer, type FakeSyncServer } from '../../support/offline'
 
 async function advance(db: FloatwiseDb, count: number, totalRows = 10_000) {
   const ids: string[] = []
@@ -17,6 +17,14 @@ function syncerFor(db: FloatwiseDb, server: FakeSyncServer, states: SyncState[] 
 }
 
 const sentIds = (server: FakeSyncServer) => server.requests.flatMap(r => r.events.map(e => e.id))
+
+/**
+ * Lets IndexedDB's tasks run until `done` (or for 500 turns): fake-indexeddb schedules them with
+ * setImmediate, which the fake timers below leave real, so this waits on no clock.
+ */
+async function settle(done: () => boolean) {
+  for (let i = 0; i < 500 && !done(); i++) await new Promise(resolve => setImmediate(resolve))
+}
 
 describe('flush', () => {
   it('drains 5,000 queued events in device order, in batches of at most 500', async () => {
@@ -86,6 +94,11 @@ describe('flush', () => {
 })
 
 describe('failures', () => {
+  // The syncer's clock and timers are fake here: waits are exact and a retry comes when the
+  // test moves the clock, not after real time.
+  beforeEach(() => { vi.useFakeTimers({ toFake: ['setTimeout', 'clearTimeout', 'Date'] }) })
+  afterEach(() => { vi.useRealTimers() })
+
   it('stops on 401 and keeps the events, with no automatic retry', async () => {
     const db = await deviceWithPiece()
     const server = fakeSyncServer()
@@ -106,7 +119,7 @@ describe('failures', () => {
     server.failures.push(400)
     expect(await syncer.flush()).toMatchObject({ ok: false, error: { kind: 'bad-request', status: 400 } })
     expect((await readPieceState(db, 1)).pending).toBe(2)
-    expect((await syncer.state()).retryInMs).toBeGreaterThan(59_000)
+    expect((await syncer.state()).retryInMs).toBe(60_000)
   })
 
   it('backs off 1 s, 2 s, 4 s … after network and 5xx failures and resets on success', async () => {
@@ -120,12 +133,15 @@ describe('failures', () => {
       await syncer.flush()
       waits.push((await syncer.state()).retryInMs!)
     }
-    expect(waits.map(w => Math.round(w / 1000))).toEqual([1, 2, 4, 8])
+    expect(waits).toEqual([1000, 2000, 4000, 8000])
     expect((await syncer.flush()).ok).toBe(true)
     expect(await syncer.state()).toMatchObject({ retryInMs: null, lastError: null, status: 'synced' })
   })
 
-  it('retries by itself after a failure once started (no window in node: timers only)', async () => {
+  // `start` begins a run at once; a flush called meanwhile shares it, so awaiting that flush
+  // waits for the run, its report and the timer it sets. Runs a timer begins are awaited with
+  // `settle`: a flush there would send by itself.
+  it('retries by itself once started, when the backoff is over and not before (no window in node: timers only)', async () => {
     const db = await deviceWithPiece()
     const server = fakeSyncServer()
     await advance(db, 2)
@@ -133,7 +149,13 @@ describe('failures', () => {
     const syncer = createSyncer({ db, fetch: server.fetch, random: () => 0, onState: s => states.push(s) }) // first wait 500 ms
     server.failures.push('network')
     syncer.start()
-    await expect.poll(() => states.at(-1)?.status, { timeout: 3000 }).toBe('synced')
+    await syncer.flush()
+    expect(states).toMatchObject([{ status: 'offline', retryInMs: 500 }])
+    await vi.advanceTimersByTimeAsync(499)
+    await settle(() => server.requests.length > 1)
+    expect(server.requests).toHaveLength(1)
+    await vi.advanceTimersByTimeAsync(1)
+    await settle(() => states.length === 2)
     expect(server.requests).toHaveLength(2)
     expect(states.map(s => s.status)).toEqual(['offline', 'synced'])
     syncer.stop()
@@ -146,10 +168,29 @@ describe('failures', () => {
     const syncer = createSyncer({ db, fetch: server.fetch, random: () => 0 })
     server.failures.push('network')
     syncer.start()
-    await expect.poll(() => server.requests.length).toBe(1)
-    syncer.stop()
-    await new Promise(r => setTimeout(r, 800))
+    await syncer.flush()
     expect(server.requests).toHaveLength(1)
+    syncer.stop()
+    await vi.advanceTimersByTimeAsync(60_000) // past the longest backoff
+    await settle(() => server.requests.length > 1)
+    expect(server.requests).toHaveLength(1)
+  })
+
+  it('sends steps left queued that no one nudged 15 s after its last report (a step from another tab)', async () => {
+    const db = await deviceWithPiece()
+    const server = fakeSyncServer()
+    const syncer = createSyncer({ db, fetch: server.fetch, random: () => 0 })
+    syncer.start()
+    await syncer.flush() // nothing queued yet
+    await advance(db, 1) // another tab's step: this syncer is not told
+    await syncer.refresh([1]) // its report sees the step queued and sets the timer
+    await vi.advanceTimersByTimeAsync(14_999)
+    await settle(() => server.stored.size > 0)
+    expect(server.stored.size).toBe(0)
+    await vi.advanceTimersByTimeAsync(1)
+    await settle(() => server.stored.size > 0)
+    expect(server.stored.size).toBe(1)
+    syncer.stop()
   })
 
   it('waits at least as long as a 503\'s Retry-After, and never past the 60 s cap', async () => {
@@ -160,11 +201,11 @@ describe('failures', () => {
     server.setRetryAfter('20') // first backoff would be 1 s
     server.failures.push(503)
     await syncer.flush()
-    expect(Math.round((await syncer.state()).retryInMs! / 1000)).toBe(20)
+    expect((await syncer.state()).retryInMs).toBe(20_000)
     server.setRetryAfter('3600')
     server.failures.push(503)
     await syncer.flush()
-    expect(Math.round((await syncer.state()).retryInMs! / 1000)).toBe(60)
+    expect((await syncer.state()).retryInMs).toBe(60_000)
     expect((await syncer.state()).pending).toBe(1) // the row is still queued
     expect((await syncer.flush()).ok).toBe(true)
   })

@@ -1,5 +1,5 @@
 // Cache Storage is shared by everyone who uses this browser profile. Our service worker keeps
-// only the app shell there (service/sw.ts), but any answer of /api/ in any cache — a runtime
+// only the app shell there (service-worker/sw.ts), but any answer of /api/ in any cache — a runtime
 // cache added later, a library's own cache — is one person's data and must not outlive their
 // sign-out. The shell stays, so the next person can still open the app offline.
 

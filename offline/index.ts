@@ -1,4 +1,5 @@
-// The client's offline store and sync: framework-free, shared by the app and the service worker.
+// The client's offline store, outbox and syncer: framework-free (no Vue, no Nuxt), so the app
+// (stores/offline.ts), the soak and the bench all run the same code.
 export { openFloatwiseDb, getDeviceId, plainData, type FloatwiseDb, type OpenOptions } from './db'
 export { recordStep, resolveConflict, savePiece, readPieceState, StepError, type StepInput, type ClientClock, type PieceState } from './progress'
 export { createSyncer, type Syncer, type SyncerOptions, type SyncResult } from './sync'

@@ -1,7 +1,7 @@
 import fc from 'fast-check'
 import { describe, expect, it } from 'vitest'
-import { createSyncer, readPieceState, recordStep } from '../../../service'
-import { deviceWithPiece, fakeSyncServer, type FakeFailure } from './helpers'
+import { createSyncer, readPieceState, recordStep } from '../../../offline'
+import { deviceWithPiece, fakeSyncServer, type FakeFailure } from '../../support/offline'
 
 const totalRows = 40
 

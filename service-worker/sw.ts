@@ -1,7 +1,7 @@
 /// <reference lib="webworker" />
 // Floatwise's service worker: the app shell offline. A piece opened once can be knitted
 // with no network at all, after a reload, because every page is the same client-rendered
-// shell and the knitter's data is in IndexedDB (service/db.ts), not in this cache.
+// shell and the knitter's data is in IndexedDB (offline/db.ts), not in this cache.
 import { clientsClaim } from 'workbox-core'
 import { cleanupOutdatedCaches, createHandlerBoundToURL, precacheAndRoute } from 'workbox-precaching'
 import { NavigationRoute, registerRoute } from 'workbox-routing'
