@@ -5,14 +5,6 @@ import { apiAnswerHeaders, securityHeaders } from './security-headers'
 
 // srcDir is the project root: pages/, components/ … stand beside server/ and shared/.
 export default defineNuxtConfig({
-  compatibilityDate: '2026-11-01',
-  srcDir: '.',
-  // The whole app is client-rendered: the tablet must reload any page offline from the
-  // service worker's cached shell, and SSR pages cannot be served that way (see DEVELOPERS.md).
-  ssr: false,
-  // Painted from the HTML alone while the app's scripts load, in place of a blank page.
-  spaLoadingTemplate: 'spa-loading-template.html',
-  devtools: { enabled: false },
   modules: [
     '@nuxtjs/tailwindcss',
     '@pinia/nuxt',
@@ -22,12 +14,10 @@ export default defineNuxtConfig({
     '@nuxt/eslint',
     '@nuxt/test-utils/module',
   ],
-  css: [
-    '@fontsource/nunito/400.css',
-    '@fontsource/nunito/600.css',
-    '@fontsource/nunito/800.css',
-    '~/assets/css/main.css',
-  ],
+  // The whole app is client-rendered: the tablet must reload any page offline from the
+  // service worker's cached shell, and SSR pages cannot be served that way (see DEVELOPERS.md).
+  ssr: false,
+  devtools: { enabled: false },
   app: {
     head: {
       htmlAttrs: { lang: 'en-GB' },
@@ -44,6 +34,14 @@ export default defineNuxtConfig({
       ],
     },
   },
+  css: [
+    '@fontsource/nunito/400.css',
+    '@fontsource/nunito/600.css',
+    '@fontsource/nunito/800.css',
+    '~/assets/css/main.css',
+  ],
+  // Painted from the HTML alone while the app's scripts load, in place of a blank page.
+  spaLoadingTemplate: 'spa-loading-template.html',
   runtimeConfig: {
     // Overridden at run time by NUXT_* variables; scripts/start.mjs sets them.
     mailFrom: 'Floatwise <no-reply@floatwise.test>',
@@ -63,17 +61,22 @@ export default defineNuxtConfig({
     // A session cookie is refused 30 days after sign-in (nuxt-auth-utils sets no limit itself).
     session: { maxAge: 30 * 24 * 60 * 60 },
   },
-  // The app learns who is signed in from /api/me (stores/account.ts) and never reads the
-  // module's client session, so its plugin would only add a request the app waits for at start.
-  auth: { loadStrategy: 'none' },
-  tailwindcss: {
-    cssPath: false,
-    configPath: 'tailwind.config.ts',
-  },
+  srcDir: '.',
   routeRules: {
     '/**': { headers: securityHeaders },
     '/api/**': { headers: apiAnswerHeaders },
   },
+  compatibilityDate: '2026-11-01',
+  nitro: {
+    prerender: { routes: ['/'] },
+    // Scripts, styles and fonts are kept gzip- and brotli-compressed beside the originals and
+    // served compressed to browsers that accept it: a third of the bytes on a slow line.
+    compressPublicAssets: true,
+    // Original motif pictures, keyed by motif id. The fs base is resolved against the
+    // server's working directory at run time; NUXT_PICTURES_DIR overrides it (server/plugins/pictures.ts).
+    storage: { pictures: { driver: 'fs', base: '.data/pictures' } },
+  },
+  typescript: { strict: true },
   hooks: {
     // Errors get their standard status text, and a database that is not answering becomes a
     // 503, before Nuxt's and Nitro's own error handlers see them (Nitro tries the handlers in
@@ -86,16 +89,13 @@ export default defineNuxtConfig({
       bundlePictureWorker(nitro) // the worker thread that reads pictures
     },
   },
-  nitro: {
-    prerender: { routes: ['/'] },
-    // Scripts, styles and fonts are kept gzip- and brotli-compressed beside the originals and
-    // served compressed to browsers that accept it: a third of the bytes on a slow line.
-    compressPublicAssets: true,
-    // Original motif pictures, keyed by motif id. The fs base is resolved against the
-    // server's working directory at run time; NUXT_PICTURES_DIR overrides it (server/plugins/pictures.ts).
-    storage: { pictures: { driver: 'fs', base: '.data/pictures' } },
-  },
-  typescript: { strict: true },
-  eslint: { config: { stylistic: false } },
+  // The app learns who is signed in from /api/me (stores/account.ts) and never reads the
+  // module's client session, so its plugin would only add a request the app waits for at start.
+  auth: { loadStrategy: 'none' },
+  eslint: { config: { stylistic: { indent: 2, quotes: 'single', semi: false, commaDangle: 'always-multiline', braceStyle: 'stroustrup' } } },
   pwa,
+  tailwindcss: {
+    cssPath: false,
+    configPath: 'tailwind.config.ts',
+  },
 })

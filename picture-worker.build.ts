@@ -15,7 +15,7 @@ export function bundlePictureWorker(nitro: Nitro) {
   // The entry only answers its parent; Nitro's tree-shaking must not drop that.
   nitro.options.moduleSideEffects.push(workerEntry)
   nitro.hooks.hook('rollup:before', (_, rollup) => {
-    rollup.input = { index: rollup.input as string, 'picture-decoder': workerEntry }
+    rollup.input = { 'index': rollup.input as string, 'picture-decoder': workerEntry }
     rollup.output.entryFileNames = chunk => (chunk.name === 'index' ? 'index.mjs' : `workers/${chunk.name}.mjs`)
     const nitroChunks = rollup.output.manualChunks
     if (typeof nitroChunks !== 'function') throw new Error('picture worker: Nitro no longer names its chunks with a function')
@@ -29,7 +29,8 @@ export function bundlePictureWorker(nitro: Nitro) {
         const visit = (file: string) => {
           if (seen.has(file)) return
           seen.add(file)
-          if (file.startsWith('chunks/nitro/')) this.error(`the picture worker imports ${file}: move what it needs out of Nitro's chunk (picture-worker.build.ts)`)
+          if (file.startsWith('chunks/nitro/'))
+            this.error(`the picture worker imports ${file}: move what it needs out of Nitro's chunk (picture-worker.build.ts)`)
           const chunk = bundle[file]
           if (chunk?.type === 'chunk') chunk.imports.forEach(visit)
         }

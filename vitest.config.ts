@@ -11,7 +11,20 @@ const resolve = { alias: { '#shared': fileURLToPath(new URL('./shared', import.m
 export default defineConfig({
   test: {
     projects: bench
-      ? [{ resolve, test: { name: 'bench', include: ['tests/bench/**/*.bench.ts'], environment: 'node', testTimeout: 600_000, hookTimeout: 60_000, globalSetup: ['tests/support/globalServer.ts'], fileParallelism: false } }]
+      ? [
+          {
+            resolve,
+            test: {
+              name: 'bench',
+              include: ['tests/bench/**/*.bench.ts'],
+              environment: 'node',
+              testTimeout: 600_000,
+              hookTimeout: 60_000,
+              globalSetup: ['tests/support/globalServer.ts'],
+              fileParallelism: false,
+            },
+          },
+        ]
       : [
           { resolve, test: { name: 'unit', include: ['tests/unit/**/*.test.ts'], environment: 'node' } },
           await defineVitestProject({

@@ -111,5 +111,25 @@ export function useKnitSession(pieceId: number) {
     void store.syncer.nudge()
   }
 
-  return { piece, progress, pending, position, compiled, timeline, completedRows, finishEstimate, syncState, settings, loadError, stepError, busy, load, advance, undo, jump, resolve, unlockSound: sound.unlock }
+  return {
+    piece,
+    progress,
+    pending,
+    position,
+    compiled,
+    timeline,
+    completedRows,
+    finishEstimate,
+    syncState,
+    settings,
+    loadError,
+    stepError,
+    busy,
+    load,
+    advance,
+    undo,
+    jump,
+    resolve,
+    unlockSound: sound.unlock,
+  }
 }

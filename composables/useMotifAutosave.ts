@@ -16,7 +16,11 @@ interface Pending { rows?: true; name?: string; published?: boolean }
  * meanwhile are kept) until the designer chooses: `keepMine`, `takeTheirs`, or `combined` then
  * `keepMine` with its rows.
  */
-export function useMotifAutosave(id: number, rows: () => string[], options: { delayMs?: number; from?: MotifDetail; onSaved?: (motif: MotifDetail) => void } = {}) {
+export function useMotifAutosave(
+  id: number,
+  rows: () => string[],
+  options: { delayMs?: number; from?: MotifDetail; onSaved?: (motif: MotifDetail) => void } = {},
+) {
   const delay = options.delayMs ?? 800
   const state = ref<MotifSaveState>('saved')
   const message = ref('')
@@ -35,12 +39,17 @@ export function useMotifAutosave(id: number, rows: () => string[], options: { de
     if (theirs.value) return
     state.value = navigator.onLine === false ? 'offline' : 'unsaved'
     clearTimeout(timer)
-    timer = setTimeout(() => { void flush() }, wait)
+    timer = setTimeout(() => {
+      void flush()
+    }, wait)
   }
 
   async function flush(): Promise<void> {
     clearTimeout(timer)
-    if (sending) { await sending; if (!hasPending() || state.value === 'error') return }
+    if (sending) {
+      await sending
+      if (!hasPending() || state.value === 'error') return
+    }
     if (!hasPending() || theirs.value) return
     const taken = pending
     pending = {}
@@ -67,14 +76,18 @@ export function useMotifAutosave(id: number, rows: () => string[], options: { de
         else if (!status) {
           state.value = 'offline'
           // Try again now and then; the 'online' event below is quicker when the browser sends it.
-          timer = setTimeout(() => { void flush() }, 10_000)
+          timer = setTimeout(() => {
+            void flush()
+          }, 10_000)
         }
         else {
           state.value = 'error'
           message.value = describeApiError(error).message
         }
       }
-      finally { sending = null }
+      finally {
+        sending = null
+      }
     })()
     await sending
     if (hasPending() && (state.value as MotifSaveState) === 'unsaved') queue({}, delay)
@@ -115,24 +128,33 @@ export function useMotifAutosave(id: number, rows: () => string[], options: { de
   /** Whether this copy changed the name or publishing since it was last saved. */
   const changedHere = (field: 'name' | 'published') => pending[field] !== undefined
 
-  useEventListener(window, 'online', () => { if (hasPending()) void flush() })
-  useEventListener(window, 'offline', () => { if (hasPending() && !theirs.value) state.value = 'offline' })
+  useEventListener(window, 'online', () => {
+    if (hasPending()) void flush()
+  })
+  useEventListener(window, 'offline', () => {
+    if (hasPending() && !theirs.value) state.value = 'offline'
+  })
   // Leaving with changes not yet on the server: send them, and let the browser ask first.
   useEventListener(window, 'beforeunload', (event: BeforeUnloadEvent) => {
     if (state.value === 'saved') return
     void flush()
     event.preventDefault()
   })
-  onBeforeUnmount(() => { if (hasPending()) void flush() })
+  onBeforeUnmount(() => {
+    if (hasPending()) void flush()
+  })
 
-  const words = computed(() => ({
-    saved: 'Saved',
-    saving: 'Saving…',
-    unsaved: 'Not saved yet',
-    offline: 'Not saved: offline. Saves when the connection returns',
-    error: `Not saved: ${message.value}`,
-    conflict: 'Not saved: changed elsewhere. Choose which copy to keep',
-  })[state.value])
+  const words = computed(
+    () =>
+      ({
+        saved: 'Saved',
+        saving: 'Saving…',
+        unsaved: 'Not saved yet',
+        offline: 'Not saved: offline. Saves when the connection returns',
+        error: `Not saved: ${message.value}`,
+        conflict: 'Not saved: changed elsewhere. Choose which copy to keep',
+      })[state.value],
+  )
 
   return { state, message, words, theirs, queue, flush, keepMine, takeTheirs, combined, changedHere }
 }

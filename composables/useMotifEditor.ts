@@ -1,6 +1,22 @@
 import { computed, shallowRef, triggerRef } from 'vue'
-import { MAX_CHART_HEIGHT, MAX_CHART_WIDTH, chartFromRows, chartToRows, copyChart, createHistory, fillColumn, fillRow, invertChart, mirrorChart, recordHistory, redoHistory,
-  resizeChart, sameChart, shiftChart, undoHistory } from '#shared/engine'
+import {
+  MAX_CHART_HEIGHT,
+  MAX_CHART_WIDTH,
+  chartFromRows,
+  chartToRows,
+  copyChart,
+  createHistory,
+  fillColumn,
+  fillRow,
+  invertChart,
+  mirrorChart,
+  recordHistory,
+  redoHistory,
+  resizeChart,
+  sameChart,
+  shiftChart,
+  undoHistory,
+} from '#shared/engine'
 import type { Chart, ChartHistory, Colour } from '#shared/engine'
 
 // The motif editor's state: the current chart, the stroke in progress and the undo history.

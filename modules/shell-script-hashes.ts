@@ -21,7 +21,8 @@ export default defineNuxtModule({
         // The same rules live in two places: the options, and the runtime config that is bundled.
         for (const rules of new Set([nitro.options.routeRules, nitro.options.runtimeConfig.nitro?.routeRules])) {
           const headers = rules?.['/**']?.headers
-          if (!headers?.['Content-Security-Policy']) throw new Error('shell-script-hashes: the /** route rule has no Content-Security-Policy to extend (nuxt.config.ts)')
+          if (!headers?.['Content-Security-Policy'])
+            throw new Error('shell-script-hashes: the /** route rule has no Content-Security-Policy to extend (nuxt.config.ts)')
           headers['Content-Security-Policy'] = policy
         }
       })

@@ -47,7 +47,12 @@ function versionFor(current: LocalProgress) {
  * Writes the event to the outbox and the new local place in ONE transaction, so when this
  * resolves both are durable (the screen confirms only then) and a crash leaves neither.
  */
-export async function recordStep(db: FloatwiseDb, pieceId: number, step: StepInput, clock: ClientClock = {}): Promise<{ event: RowEvent; progress: LocalProgress }> {
+export async function recordStep(
+  db: FloatwiseDb,
+  pieceId: number,
+  step: StepInput,
+  clock: ClientClock = {},
+): Promise<{ event: RowEvent; progress: LocalProgress }> {
   const input = plainData(step)
   return db.transaction('rw', db.progress, db.outbox, async () => {
     const current = await db.progress.get(pieceId)
@@ -69,7 +74,12 @@ export async function recordStep(db: FloatwiseDb, pieceId: number, step: StepInp
  * The conflict stays (with `resolvingWith`) until the server confirms, so the choice shows
  * as pending rather than settled while offline.
  */
-export async function resolveConflict(db: FloatwiseDb, pieceId: number, keep: 'ours' | 'theirs', clock: ClientClock = {}): Promise<{ event: RowEvent; progress: LocalProgress }> {
+export async function resolveConflict(
+  db: FloatwiseDb,
+  pieceId: number,
+  keep: 'ours' | 'theirs',
+  clock: ClientClock = {},
+): Promise<{ event: RowEvent; progress: LocalProgress }> {
   return db.transaction('rw', db.progress, db.outbox, async () => {
     const current = await db.progress.get(pieceId)
     if (!current?.conflict) throw new StepError(`Piece ${pieceId} has no conflict to resolve.`)

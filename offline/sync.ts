@@ -59,7 +59,8 @@ export function createSyncer(options: SyncerOptions) {
       result.accepted += answer.answer.accepted.length
       result.rejected += answer.answer.rejected?.length ?? 0
       // An answer that takes nothing would make this loop spin on the same batch.
-      if (moved === 0) return { ...result, ok: false, error: { kind: 'server', message: `The server took none of ${batch.length} events.`, at: now().toISOString() } }
+      if (moved === 0)
+        return { ...result, ok: false, error: { kind: 'server', message: `The server took none of ${batch.length} events.`, at: now().toISOString() } }
     }
   }
 
@@ -87,7 +88,13 @@ export function createSyncer(options: SyncerOptions) {
         again = false
         try { result = await drain() }
         catch (e) {
-          result = { ok: false, accepted: 0, rejected: 0, batches: 0, error: { kind: 'storage', message: e instanceof Error ? e.message : String(e), at: now().toISOString() } }
+          result = {
+            ok: false,
+            accepted: 0,
+            rejected: 0,
+            batches: 0,
+            error: { kind: 'storage', message: e instanceof Error ? e.message : String(e), at: now().toISOString() },
+          }
         }
       } while (again && result.ok)
       await settle(result).catch(() => {})

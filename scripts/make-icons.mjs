@@ -45,7 +45,12 @@ function draw(size, { maskable = false } = {}) {
 }
 
 mkdirSync(out, { recursive: true })
-for (const [name, size, opts] of [['icon-192.png', 192], ['icon-512.png', 512], ['maskable-512.png', 512, { maskable: true }], ['apple-touch-icon.png', 180, { maskable: true }]]) {
+for (const [name, size, opts] of [
+  ['icon-192.png', 192],
+  ['icon-512.png', 512],
+  ['maskable-512.png', 512, { maskable: true }],
+  ['apple-touch-icon.png', 180, { maskable: true }],
+]) {
   writeFileSync(join(out, name), draw(size, opts))
   console.log(`public/icons/${name}`)
 }

@@ -19,7 +19,11 @@ mkdirSync(join(root, '.data'), { recursive: true })
 // The lock: a test run rebuilds .output, which the soak's server runs from.
 const code = await withCheckoutLock(join(root, '.data/test.lock'), async () => {
   ensureBuild(root)
-  const env = { ...process.env, FLOATWISE_ROOT: root, NUXT_SESSION_PASSWORD: keptSecret(join(root, '.data/session-password'), process.env.NUXT_SESSION_PASSWORD) }
+  const env = {
+    ...process.env,
+    FLOATWISE_ROOT: root,
+    NUXT_SESSION_PASSWORD: keptSecret(join(root, '.data/session-password'), process.env.NUXT_SESSION_PASSWORD),
+  }
   const soak = typescriptRun(root, 'tests/soak/main.ts')
   const result = spawnSync(process.execPath, [...soak.args, ...process.argv.slice(2)], { cwd: root, env: { ...env, ...soak.env }, stdio: 'inherit' })
   return result.status ?? 1

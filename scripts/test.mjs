@@ -32,7 +32,11 @@ async function runEverything() {
   const testEnv = { ...process.env, ...env, FLOATWISE_ROOT: root }
 
   const extraArgs = process.argv.slice(2)
-  const vitest = spawnSync(bin('vitest'), ['run', '--reporter=default', '--reporter=json', `--outputFile.json=${results}`, ...extraArgs], { cwd: root, env: testEnv, stdio: 'inherit' })
+  const vitest = spawnSync(bin('vitest'), ['run', '--reporter=default', '--reporter=json', `--outputFile.json=${results}`, ...extraArgs], {
+    cwd: root,
+    env: testEnv,
+    stdio: 'inherit',
+  })
 
   // Static checks count as one test each, named in the output.
   const checks = []

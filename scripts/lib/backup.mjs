@@ -47,7 +47,8 @@ export function databaseExists(server, database) {
 export function restoreDatabase(server, file, database, { replace = false, appUser = 'floatwise' } = {}) {
   if (!safeName.test(database)) throw new Error(`Not a database name: ${database}`)
   if (!existsSync(file)) throw new Error(`No such dump: ${file}`)
-  if (databaseExists(server, database) && !replace) throw new Error(`Database ${database} exists; choose another name with --into, or add --replace to overwrite it.`)
+  if (databaseExists(server, database) && !replace)
+    throw new Error(`Database ${database} exists; choose another name with --into, or add --replace to overwrite it.`)
   const sql = statements => check(spawnSync(which('mariadb') ?? 'mariadb', server.client(['-e', statements]), { encoding: 'utf8' }), 'mariadb')
   sql([
     `DROP DATABASE IF EXISTS \`${database}\`;`,
@@ -56,7 +57,13 @@ export function restoreDatabase(server, file, database, { replace = false, appUs
   ].join(' '))
   const input = openSync(file, 'r')
   try {
-    check(spawnSync(which('mariadb') ?? 'mariadb', server.client(['--default-character-set=utf8mb4', database]), { stdio: [input, 'ignore', 'pipe'], encoding: 'utf8' }), 'mariadb (restore)')
+    check(
+      spawnSync(which('mariadb') ?? 'mariadb', server.client(['--default-character-set=utf8mb4', database]), {
+        stdio: [input, 'ignore', 'pipe'],
+        encoding: 'utf8',
+      }),
+      'mariadb (restore)',
+    )
   }
   finally {
     closeSync(input)

@@ -5,8 +5,33 @@ import { log } from './log.mjs'
 import { run } from './run.mjs'
 
 // Everything that goes into .output; tests/ and scripts/ do not.
-const inputs = ['app.vue', 'error.vue', 'nuxt.config.ts', 'pwa.config.ts', 'security-headers.ts', 'inline-scripts.ts', 'picture-worker.build.ts', 'tailwind.config.ts', 'package-lock.json', 'tsconfig.json',
-  'spa-loading-template.html', 'modules', 'pages', 'components', 'composables', 'stores', 'layouts', 'middleware', 'plugins', 'assets', 'public', 'server', 'shared', 'offline', 'service-worker']
+const inputs = [
+  'app.vue',
+  'error.vue',
+  'nuxt.config.ts',
+  'pwa.config.ts',
+  'security-headers.ts',
+  'inline-scripts.ts',
+  'picture-worker.build.ts',
+  'tailwind.config.ts',
+  'package-lock.json',
+  'tsconfig.json',
+  'spa-loading-template.html',
+  'modules',
+  'pages',
+  'components',
+  'composables',
+  'stores',
+  'layouts',
+  'middleware',
+  'plugins',
+  'assets',
+  'public',
+  'server',
+  'shared',
+  'offline',
+  'service-worker',
+]
 
 function hashInputs(root) {
   const hash = createHash('sha256')

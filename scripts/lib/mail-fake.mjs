@@ -62,7 +62,11 @@ export function readCapturedMail(dir) {
 export async function startMailViewer(dir, port = 0) {
   mkdirSync(dir, { recursive: true })
   const server = createHttpServer((req, res) => {
-    const headers = { 'cache-control': 'no-store', 'x-content-type-options': 'nosniff', 'content-security-policy': 'default-src \'none\'; style-src \'unsafe-inline\'' }
+    const headers = {
+      'cache-control': 'no-store',
+      'x-content-type-options': 'nosniff',
+      'content-security-policy': 'default-src \'none\'; style-src \'unsafe-inline\'',
+    }
     if (req.method !== 'GET') {
       res.writeHead(405, headers).end('Only GET')
       return
@@ -77,8 +81,14 @@ export async function startMailViewer(dir, port = 0) {
       return
     }
     const linkify = text => escapeHtml(text).replace(/https?:\/\/[^\s<]+/g, url => `<a href="${url}">${url}</a>`)
-    const items = messages.map(m => `<article><h2>${escapeHtml(m.subject)}</h2><p class="meta">To ${escapeHtml(m.to)} · ${escapeHtml(m.at)}</p><pre>${linkify(m.text)}</pre></article>`).join('')
-    res.writeHead(200, { ...headers, 'content-type': 'text/html; charset=utf-8' }).end(`<!doctype html><html lang="en"><head><meta charset="utf-8"><title>Floatwise mail fake</title>
+    const items = messages
+      .map(
+        m =>
+          `<article><h2>${escapeHtml(m.subject)}</h2><p class="meta">To ${escapeHtml(m.to)} · ${escapeHtml(m.at)}</p><pre>${linkify(m.text)}</pre></article>`,
+      )
+      .join('')
+    res.writeHead(200, { ...headers, 'content-type': 'text/html; charset=utf-8' })
+      .end(`<!doctype html><html lang="en"><head><meta charset="utf-8"><title>Floatwise mail fake</title>
 <style>body{font-family:sans-serif;max-width:50rem;margin:2rem auto;padding:0 1rem}article{border-top:1px solid #ccc;padding:.5rem 0}pre{white-space:pre-wrap;word-break:break-word}.meta{color:#555}</style></head>
 <body><h1>Mail sent by the local Floatwise server</h1><p class="meta">Only on this computer (127.0.0.1). Reload for new mail.</p>${items || '<p>No mail yet.</p>'}</body></html>`)
   })

@@ -34,7 +34,11 @@ export function privateMariadb(root, port = Number(process.env.FLOATWISE_DB_PORT
     }
     if (!existsSync(`${base}/data/mysql`)) {
       log('Initialising the private MariaDB data directory…')
-      run(which('mariadb-install-db'), ['--no-defaults', '--user=root', `--datadir=${base}/data`, '--skip-test-db', '--skip-name-resolve', '--auth-root-authentication-method=socket'], { stdio: ['ignore', 'ignore', 'inherit'] })
+      run(
+        which('mariadb-install-db'),
+        ['--no-defaults', '--user=root', `--datadir=${base}/data`, '--skip-test-db', '--skip-name-resolve', '--auth-root-authentication-method=socket'],
+        { stdio: ['ignore', 'ignore', 'inherit'] },
+      )
     }
     await assertPortFree(port, 'the private MariaDB', 'FLOATWISE_DB_PORT')
     log(`Starting MariaDB on 127.0.0.1:${port}…`)
@@ -60,7 +64,7 @@ export function privateMariadb(root, port = Number(process.env.FLOATWISE_DB_PORT
 
   /** Creates the database and the application user (password kept under .data/). */
   function ensureDatabase(name, user, password, { fresh = false } = {}) {
-    const q = s => s.replace(/'/g, "''")
+    const q = s => s.replace(/'/g, '\'\'')
     sql([
       fresh ? `DROP DATABASE IF EXISTS \`${name}\`;` : '',
       `CREATE DATABASE IF NOT EXISTS \`${name}\` CHARACTER SET utf8mb4 COLLATE utf8mb4_unicode_ci;`,

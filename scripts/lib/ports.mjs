@@ -7,5 +7,8 @@ export async function assertPortFree(port, what, variable) {
     probe.once('error', () => resolve(false))
     probe.listen(port, '127.0.0.1', () => probe.close(() => resolve(true)))
   })
-  if (!free) throw new Error(`Port ${port} for ${what} is already in use (another Floatwise checkout, or another program). Stop it, or choose another port with ${variable}=<port>.`)
+  if (!free)
+    throw new Error(
+      `Port ${port} for ${what} is already in use (another Floatwise checkout, or another program). Stop it, or choose another port with ${variable}=<port>.`,
+    )
 }

@@ -18,8 +18,17 @@ export interface LockedPiece {
 }
 
 export interface NewRowEvent {
-  id: string; pieceId: number; userId: number; deviceId: string; kind: RowEventKind
-  fromRows: number; toRows: number; version: number; at: Date; receivedAt: Date; outcome: RowEventOutcome
+  id: string
+  pieceId: number
+  userId: number
+  deviceId: string
+  kind: RowEventKind
+  fromRows: number
+  toRows: number
+  version: number
+  at: Date
+  receivedAt: Date
+  outcome: RowEventOutcome
 }
 
 /** Who sent a stored event, to tell a replay from an id reused for another piece. */
@@ -78,30 +87,48 @@ export async function insertRowEvents(db: Sequelize, rows: NewRowEvent[], transa
     `INSERT INTO row_events (id, piece_id, user_id, device_id, kind, from_rows, to_rows, version, at, received_at, outcome) VALUES ${rows.map(() => '(?, ?, ?, ?, ?, ?, ?, ?, ?, ?, ?)').join(', ')}`,
     {
       replacements: rows.flatMap(r => [r.id, r.pieceId, r.userId, r.deviceId, r.kind, r.fromRows, r.toRows, r.version, r.at, r.receivedAt, r.outcome]),
-      type: QueryTypes.INSERT, transaction,
+      type: QueryTypes.INSERT,
+      transaction,
     },
   )
 }
 
 export async function updatePiecePlace(db: Sequelize, pieceId: number, piece: LockedPiece, transaction: Transaction) {
-  await db.query(
-    'UPDATE pieces SET completed_rows = ?, version = ?, last_device_id = ?, last_knitted_at = ?, finished_at = ?, updated_at = ? WHERE id = ?',
-    { replacements: [piece.completedRows, piece.version, piece.lastDeviceId, piece.lastKnittedAt, piece.finishedAt, piece.updatedAt, pieceId], type: QueryTypes.UPDATE, transaction },
-  )
+  await db.query('UPDATE pieces SET completed_rows = ?, version = ?, last_device_id = ?, last_knitted_at = ?, finished_at = ?, updated_at = ? WHERE id = ?', {
+    replacements: [piece.completedRows, piece.version, piece.lastDeviceId, piece.lastKnittedAt, piece.finishedAt, piece.updatedAt, pieceId],
+    type: QueryTypes.UPDATE,
+    transaction,
+  })
 }
 
 export async function countOtherOpenPieces(db: Sequelize, projectId: number, pieceId: number, transaction: Transaction) {
-  const [row] = await select<{ n: number }>(db, 'SELECT COUNT(*) AS n FROM pieces WHERE project_id = ? AND id <> ? AND finished_at IS NULL', [projectId, pieceId], transaction)
+  const [row] = await select<{ n: number }>(
+    db,
+    'SELECT COUNT(*) AS n FROM pieces WHERE project_id = ? AND id <> ? AND finished_at IS NULL',
+    [projectId, pieceId],
+    transaction,
+  )
   return Number(row?.n ?? 0)
 }
 
 /** Only the columns given change (and `updated_at`). */
-export async function updateProject(db: Sequelize, projectId: number, change: { status: ProjectStatus; startedAt?: Date; finishedAt?: Date | null }, now: Date, transaction: Transaction) {
-  const columns: [string, unknown][] = [['status', change.status], ['updated_at', now]]
+export async function updateProject(
+  db: Sequelize,
+  projectId: number,
+  change: { status: ProjectStatus; startedAt?: Date; finishedAt?: Date | null },
+  now: Date,
+  transaction: Transaction,
+) {
+  const columns: [string, unknown][] = [
+    ['status', change.status],
+    ['updated_at', now],
+  ]
   if (change.startedAt !== undefined) columns.push(['started_at', change.startedAt])
   if (change.finishedAt !== undefined) columns.push(['finished_at', change.finishedAt])
   await db.query(`UPDATE projects SET ${columns.map(([c]) => `${c} = ?`).join(', ')} WHERE id = ?`, {
-    replacements: [...columns.map(([, v]) => v), projectId], type: QueryTypes.UPDATE, transaction,
+    replacements: [...columns.map(([, v]) => v), projectId],
+    type: QueryTypes.UPDATE,
+    transaction,
   })
 }
 

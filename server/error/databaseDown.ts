@@ -8,7 +8,9 @@ export default defineNitroErrorHandler(async (error, event, { defaultHandler }) 
   if (!isDatabaseUnavailable(error)) return
   console.warn(`[database unavailable] ${event.method} ${event.path}: ${(error.cause as Error | undefined)?.message ?? error.message}`)
   // The usual error body (statusCode, message, …), built by the default handler from a 503.
-  const res = await defaultHandler(createError({ statusCode: 503, statusMessage: 'Service Unavailable', message: databaseDownMessage }), event, { silent: true })
+  const res = await defaultHandler(createError({ statusCode: 503, statusMessage: 'Service Unavailable', message: databaseDownMessage }), event, {
+    silent: true,
+  })
   setResponseHeaders(event, res.headers)
   setResponseHeader(event, 'retry-after', databaseRetryAfterSeconds)
   setResponseStatus(event, 503, 'Service Unavailable')

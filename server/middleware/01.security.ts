@@ -7,7 +7,10 @@ const uploadBodyBytes = 6 * 1024 * 1024
 const uploadPaths = ['/api/motifs/from-picture', '/api/motifs/picture-preview']
 
 function refuseCrossSite(): never {
-  throw createError({ statusCode: 403, message: `Cross-site request refused: changes are taken only from this app's own pages (${new URL(useRuntimeConfig().appUrl).origin})` })
+  throw createError({
+    statusCode: 403,
+    message: `Cross-site request refused: changes are taken only from this app's own pages (${new URL(useRuntimeConfig().appUrl).origin})`,
+  })
 }
 
 export default defineEventHandler((event) => {

@@ -29,7 +29,8 @@ function decodePicture(job: PictureChartJob): { rgba: Uint8Array; width: number;
   let decoded: { data: ArrayLike<number>; width: number; height: number }
   try {
     if (job.type === 'image/png') decoded = PNG.sync.read(Buffer.from(job.bytes.buffer, job.bytes.byteOffset, job.bytes.byteLength))
-    else if (job.type === 'image/jpeg') decoded = jpeg.decode(job.bytes, { useTArray: true, formatAsRGBA: true, maxResolutionInMP: PICTURE_UPLOAD.maxPixels / 1e6, maxMemoryUsageInMB: 256 })
+    else if (job.type === 'image/jpeg')
+      decoded = jpeg.decode(job.bytes, { useTArray: true, formatAsRGBA: true, maxResolutionInMP: PICTURE_UPLOAD.maxPixels / 1e6, maxMemoryUsageInMB: 256 })
     else decoded = decodeWebp(job.bytes)
   }
   catch (e) {

@@ -7,11 +7,11 @@ import type { PictureChartJob, PictureChartResult } from './chartFromPicture'
 // its own entry, .output/server/workers/picture-decoder.mjs (picture-worker.build.ts). For each
 // picture it says when it starts, so the time limit counts only the reading, then answers.
 
-export type DecodeAnswer =
-  | { kind: 'started' }
-  | { kind: 'chart'; result: PictureChartResult }
-  | { kind: 'unreadable'; message: string }
-  | { kind: 'refused'; field: string; message: string }
+export type DecodeAnswer
+  = | { kind: 'started' }
+    | { kind: 'chart'; result: PictureChartResult }
+    | { kind: 'unreadable'; message: string }
+    | { kind: 'refused'; field: string; message: string }
 
 const port = parentPort!
 const send = (answer: DecodeAnswer, transfer: ArrayBuffer[] = []) => port.postMessage(answer, transfer)

@@ -30,7 +30,12 @@ export default defineNitroPlugin((nitroApp) => {
       const origin = requestOrigin(event)
       if (!origin) return refuse(event, 400, 'Bad Request', 'The Host header does not name a host')
       if (!isOwnHostname(origin.hostname)) {
-        return refuse(event, 421, 'Misdirected Request', `This server does not answer for ${origin.hostname}: open it at its own address, or add the name to NUXT_ALLOWED_HOSTS`)
+        return refuse(
+          event,
+          421,
+          'Misdirected Request',
+          `This server does not answer for ${origin.hostname}: open it at its own address, or add the name to NUXT_ALLOWED_HOSTS`,
+        )
       }
     }),
   })

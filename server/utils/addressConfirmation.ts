@@ -20,6 +20,9 @@ export async function queueAddressConfirmation(event: H3Event, user: User, trans
 /** Refuses, with what to do, a person whose address is not confirmed yet. */
 export function requireConfirmedAddress(user: User) {
   if (!user.emailConfirmedAt) {
-    throw createError({ statusCode: 403, message: `Confirm your address first: open the link we mailed to ${user.email} (your account page can send it again)` })
+    throw createError({
+      statusCode: 403,
+      message: `Confirm your address first: open the link we mailed to ${user.email} (your account page can send it again)`,
+    })
   }
 }

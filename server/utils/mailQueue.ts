@@ -20,7 +20,13 @@ const limits: Limit[] = [
   { of: 'recipient', kinds: ['password-reset'], count: 3, windowMs: hour, say: 'password links to this address' },
   { of: 'recipient', kinds: ['confirm-address', 'account-exists', 'welcome'], count: 3, windowMs: hour, say: 'sign-up mails to this address' },
   { of: 'recipient', kinds: ['invitation'], count: 5, windowMs: day, say: 'invitations to this address' },
-  { of: 'senderAddress', kinds: ['password-reset', 'confirm-address', 'account-exists', 'welcome'], count: 20, windowMs: hour, say: 'mails asked for from your network address' },
+  {
+    of: 'senderAddress',
+    kinds: ['password-reset', 'confirm-address', 'account-exists', 'welcome'],
+    count: 20,
+    windowMs: hour,
+    say: 'mails asked for from your network address',
+  },
   { of: 'senderUser', kinds: ['invitation'], count: 30, windowMs: hour, say: 'invitations sent by you' },
   { of: 'studio', kinds: ['invitation'], count: 100, windowMs: day, say: 'invitations from this studio' },
 ]
@@ -55,7 +61,10 @@ export async function queueMail(event: H3Event | null, mail: MailToQueue) {
       await row.destroy()
       const retryAfter = Math.max(1, Math.ceil(refused.retryAfterMs / 1000))
       setResponseHeader(event, 'Retry-After', retryAfter)
-      throw createError({ statusCode: 429, message: `Too many ${refused.limit.say}: at most ${refused.limit.count} in ${describeWindow(refused.limit.windowMs)}. Try again in ${describeWait(retryAfter)}.` })
+      throw createError({
+        statusCode: 429,
+        message: `Too many ${refused.limit.say}: at most ${refused.limit.count} in ${describeWindow(refused.limit.windowMs)}. Try again in ${describeWait(retryAfter)}.`,
+      })
     }
   }
   await row.update({ nextAttemptAt: new Date() })
@@ -73,7 +82,12 @@ function describeWait(seconds: number) {
 async function limitReached(row: QueuedMail) {
   for (const limit of limits) {
     if (!limit.kinds.includes(row.kind as MailKind)) continue
-    const key = { recipient: { toAddress: row.toAddress }, senderUser: { senderUserId: row.senderUserId }, senderAddress: { senderAddress: row.senderAddress }, studio: { studioId: row.studioId } }[limit.of]
+    const key = {
+      recipient: { toAddress: row.toAddress },
+      senderUser: { senderUserId: row.senderUserId },
+      senderAddress: { senderAddress: row.senderAddress },
+      studio: { studioId: row.studioId },
+    }[limit.of]
     if (Object.values(key)[0] === null || Object.values(key)[0] === '') continue
     const since = new Date(Date.now() - limit.windowMs)
     const recent = await QueuedMail.findAll({

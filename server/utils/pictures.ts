@@ -76,14 +76,18 @@ export function checkPicture(bytes: Buffer): PictureUpload {
   const { width, height } = sniffed
   if (width < 1 || height < 1) throw corrupt(`the picture claims to be ${width} × ${height} pixels`)
   if (width > PICTURE_UPLOAD.maxSide || height > PICTURE_UPLOAD.maxSide) {
-    throw createError({ statusCode: 422, message: `The picture is ${width} × ${height} pixels; at most ${PICTURE_UPLOAD.maxSide} × ${PICTURE_UPLOAD.maxSide} is accepted` })
+    throw createError({
+      statusCode: 422,
+      message: `The picture is ${width} × ${height} pixels; at most ${PICTURE_UPLOAD.maxSide} × ${PICTURE_UPLOAD.maxSide} is accepted`,
+    })
   }
   if (width * height > PICTURE_UPLOAD.maxPixels) {
     const count = (n: number) => n.toLocaleString('en-GB')
     const side = Math.floor(Math.sqrt(PICTURE_UPLOAD.maxPixels))
     throw createError({
       statusCode: 422,
-      message: `The picture is ${width} × ${height} pixels, ${count(width * height)} in all; at most ${count(PICTURE_UPLOAD.maxPixels)} `
+      message:
+        `The picture is ${width} × ${height} pixels, ${count(width * height)} in all; at most ${count(PICTURE_UPLOAD.maxPixels)} `
         + `(${PICTURE_UPLOAD.maxPixels / 1e6} megapixels, ${side} × ${side} for example) are accepted, plenty for the largest chart: make it smaller and try again`,
     })
   }
@@ -94,7 +98,12 @@ export function checkPicture(bytes: Buffer): PictureUpload {
  * The chart a picture makes with the form's size, threshold and invert, made in a worker
  * thread when it is `userId`'s turn (server/pictures/decodePool.ts).
  */
-export async function pictureChart(event: H3Event, userId: number, picture: PictureUpload, fields: Pick<PicturePreviewFields, 'width' | 'height' | 'threshold' | 'invert'>) {
+export async function pictureChart(
+  event: H3Event,
+  userId: number,
+  picture: PictureUpload,
+  fields: Pick<PicturePreviewFields, 'width' | 'height' | 'threshold' | 'invert'>,
+) {
   const target = { width: fields.width, height: fields.height, threshold: fields.threshold, invert: fields.invert }
   const job = { bytes: picture.bytes, type: picture.type, width: picture.width, height: picture.height, target }
   try {
@@ -116,7 +125,10 @@ function pictureChartError(event: H3Event, e: unknown) {
   if (e instanceof QueueFullError) {
     setResponseHeader(event, 'Retry-After', e.whose === 'user' ? 2 : 5)
     return e.whose === 'user'
-      ? createError({ statusCode: 429, message: `You already have ${decodeQueue.perUser} pictures being read or waiting to be; wait for them to finish, then try again` })
+      ? createError({
+          statusCode: 429,
+          message: `You already have ${decodeQueue.perUser} pictures being read or waiting to be; wait for them to finish, then try again`,
+        })
       : createError({ statusCode: 503, message: 'The server is reading many pictures just now; try again in a few seconds' })
   }
   if (e instanceof DecoderFailedError) {
@@ -173,7 +185,10 @@ export async function removePicture(motifId: number) {
  * transaction that commits only after the picture is stored, and a picture whose row did
  * not commit is removed again, so neither is left without the other.
  */
-export async function insertPictureMotif(draft: Pick<Motif, 'studioId' | 'name' | 'published' | 'createdBy' | 'updatedBy'> & ReturnType<typeof chartRecord>, picture: PictureUpload): Promise<number> {
+export async function insertPictureMotif(
+  draft: Pick<Motif, 'studioId' | 'name' | 'published' | 'createdBy' | 'updatedBy'> & ReturnType<typeof chartRecord>,
+  picture: PictureUpload,
+): Promise<number> {
   let stored = 0
   try {
     return await useDb().transaction(async (transaction) => {
@@ -184,7 +199,10 @@ export async function insertPictureMotif(draft: Pick<Motif, 'studioId' | 'name' 
     })
   }
   catch (e) {
-    if (stored) await removePicture(stored).catch(() => { /* nothing was stored */ })
+    if (stored)
+      await removePicture(stored).catch(() => {
+        /* nothing was stored */
+      })
     throw e
   }
 }

@@ -42,7 +42,14 @@ export function planSummary(plan: Plan): PlanSummary {
 
 export async function listPlans(studioId: number, role: StudioRole): Promise<PlanSummary[]> {
   const where = role === 'knitter' ? { studioId, published: true } : { studioId }
-  const plans = await Plan.findAll({ where, include: [...people, { model: PlanPiece, as: 'pieces', attributes: ['id'] }], order: [['updatedAt', 'DESC'], ['id', 'DESC']] })
+  const plans = await Plan.findAll({
+    where,
+    include: [...people, { model: PlanPiece, as: 'pieces', attributes: ['id'] }],
+    order: [
+      ['updatedAt', 'DESC'],
+      ['id', 'DESC'],
+    ],
+  })
   return plans.map(planSummary)
 }
 
@@ -147,10 +154,20 @@ function pieceWarnings(plan: Plan, inp: Inputs, worked: (WorkedPlanPiece | null)
       const n = w.sections[j]!
       const longest = Math.max(...(n.maxFloat ?? [0, 0]))
       if (longest > plan.floatLimit) {
-        warnings.push({ kind: 'long-floats', piece: i, section: j, message: `${piece.name}: floats of ${longest} stitches, over the plan's limit of ${plan.floatLimit}` })
+        warnings.push({
+          kind: 'long-floats',
+          piece: i,
+          section: j,
+          message: `${piece.name}: floats of ${longest} stitches, over the plan's limit of ${plan.floatLimit}`,
+        })
       }
       if (inp.machine && n.placement && n.placement.chartWidth > inp.machine.patterningWidth) {
-        warnings.push({ kind: 'repeat-over-patterning-width', piece: i, section: j, message: `${piece.name}: the motif is ${n.placement.chartWidth} stitches wide, ${inp.machine.name} patterns ${inp.machine.patterningWidth}` })
+        warnings.push({
+          kind: 'repeat-over-patterning-width',
+          piece: i,
+          section: j,
+          message: `${piece.name}: the motif is ${n.placement.chartWidth} stitches wide, ${inp.machine.name} patterns ${inp.machine.patterningWidth}`,
+        })
       }
       const key = `${s.main}${s.contrast}`
       const a = hex.get(s.main)
@@ -193,7 +210,8 @@ function planEstimate(inp: Inputs, worked: (WorkedPlanPiece | null)[], warnings:
   const yarns: PlanYarnNeed[] = inp.slots.filter(s => totals.has(s.slot)).map((s) => {
     const t = totals.get(s.slot)!
     const onHand = Number(s.yarn.gramsOnHand)
-    if (t.grams > onHand) warnings.push({ kind: 'low-stock', message: `${s.yarn.name} (slot ${s.slot}): about ${Math.ceil(t.grams)} g needed, ${onHand} g on hand` })
+    if (t.grams > onHand)
+      warnings.push({ kind: 'low-stock', message: `${s.yarn.name} (slot ${s.slot}): about ${Math.ceil(t.grams)} g needed, ${onHand} g on hand` })
     return { slot: s.slot, yarnId: s.yarnId, name: s.yarn.name, hex: s.yarn.hex, ...t, gramsOnHand: onHand, low: t.grams > onHand }
   })
   return { model: `${model} Shaping rows are counted at the cast-on width; each piece is counted once per copy.`, yarns }
@@ -209,10 +227,26 @@ export async function planDetail(plan: Plan, viewer: StudioRole): Promise<PlanDe
   const pieces: PlanPieceView[] = inp.pieces.map((p, i) => {
     const w = worked[i]
     return {
-      id: p.id, position: p.position, name: p.name, copies: p.copies, targetWidth: Number(p.targetWidth), targetLength: Number(p.targetLength),
-      unit: p.unit, ease: Number(p.ease), sections: p.sections,
-      numbers: w ? { needles: w.needles, targetRows: w.targetRows, plannedRows: w.plannedRows, machineRows: w.machineRows, colourChanges: w.colourChanges, sections: w.sections,
-        preview: { timeline: w.timeline, offsets: w.offsets, shaping: w.shaping } } : null,
+      id: p.id,
+      position: p.position,
+      name: p.name,
+      copies: p.copies,
+      targetWidth: Number(p.targetWidth),
+      targetLength: Number(p.targetLength),
+      unit: p.unit,
+      ease: Number(p.ease),
+      sections: p.sections,
+      numbers: w
+        ? {
+            needles: w.needles,
+            targetRows: w.targetRows,
+            plannedRows: w.plannedRows,
+            machineRows: w.machineRows,
+            colourChanges: w.colourChanges,
+            sections: w.sections,
+            preview: { timeline: w.timeline, offsets: w.offsets, shaping: w.shaping },
+          }
+        : null,
     }
   })
   return {
@@ -222,7 +256,9 @@ export async function planDetail(plan: Plan, viewer: StudioRole): Promise<PlanDe
     pieces,
     gauge: inp.swatch ? swatchGauge(inp.swatch) : null,
     warnings,
-    contrast: main ? inp.slots.filter(s => s !== main).map(s => ({ slots: [main.slot, s.slot] as [string, string], ...distinguishable(main.yarn.hex, s.yarn.hex) })) : [],
+    contrast: main
+      ? inp.slots.filter(s => s !== main).map(s => ({ slots: [main.slot, s.slot] as [string, string], ...distinguishable(main.yarn.hex, s.yarn.hex) }))
+      : [],
     estimate,
   }
 }

@@ -33,7 +33,10 @@ const withoutSnapshot = { exclude: ['planSnapshot'] }
 /** A project the caller may see, with its pieces and knitter, or a 404. */
 export async function requireProject(event: H3Event, id: number) {
   const project = await Project.findByPk(id, { attributes: withoutSnapshot, include: [piecesWithoutTimeline, knitterName] })
-  const { user, role } = await studioMember(event, project?.studioId, 'knitter', { what: 'Project', sees: (role, user) => !!projectAccess(project!, user.id, role) })
+  const { user, role } = await studioMember(event, project?.studioId, 'knitter', {
+    what: 'Project',
+    sees: (role, user) => !!projectAccess(project!, user.id, role),
+  })
   return { user, project: project!, role } // no project, or not the caller's to see: studioMember answered 404
 }
 
@@ -47,7 +50,10 @@ export async function requirePiece(event: H3Event, id: number, options: { withTi
     include: [{ model: Project, as: 'project', attributes: { exclude: ['planSnapshot'] } }],
   })
   const project = piece?.project
-  const { user, role } = await studioMember(event, project?.studioId, 'knitter', { what: 'Piece', sees: (role, user) => !!projectAccess(project!, user.id, role) })
+  const { user, role } = await studioMember(event, project?.studioId, 'knitter', {
+    what: 'Piece',
+    sees: (role, user) => !!projectAccess(project!, user.id, role),
+  })
   return { user, piece: piece!, project: project!, role } // no piece, or not the caller's to see: studioMember answered 404
 }
 
@@ -130,7 +136,14 @@ export function pieceProgress(piece: Piece): PieceProgress {
 }
 
 export async function pieceDetail(piece: Piece, project: Project): Promise<PieceDetail> {
-  const siblings = await Piece.findAll({ where: { projectId: project.id }, attributes: ['id', 'position', 'finishedAt'], order: [['position', 'ASC'], ['id', 'ASC']] })
+  const siblings = await Piece.findAll({
+    where: { projectId: project.id },
+    attributes: ['id', 'position', 'finishedAt'],
+    order: [
+      ['position', 'ASC'],
+      ['id', 'ASC'],
+    ],
+  })
   // The next unfinished piece after this one, else the first unfinished one before it.
   const here = siblings.findIndex(p => p.id === piece.id)
   const next = [...siblings.slice(here + 1), ...siblings.slice(0, here)].find(p => !p.finishedAt)

@@ -23,7 +23,8 @@ export interface MemberCheck {
  */
 export async function studioMember(event: H3Event, studioId: number | undefined, least: StudioRole = 'knitter', check: MemberCheck = {}) {
   const user = await requireUser(event)
-  const role = studioId === undefined ? undefined
+  const role = studioId === undefined
+    ? undefined
     : (await Membership.findOne({ where: { studioId, userId: user.id }, attributes: ['role'] }))?.role
   if (!role || (check.sees && !check.sees(role, user))) {
     throw createError({ statusCode: 404, message: `${check.what ?? 'Studio'} not found` })

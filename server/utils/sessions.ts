@@ -19,8 +19,15 @@ const hashSid = hashLinkToken
 /** A short label of the device, from its user agent, for the account page's list. */
 export function deviceLabel(userAgent: string | undefined) {
   const ua = userAgent ?? ''
-  const system = [['iPad', 'iPad'], ['iPhone', 'iPhone'], ['Android', 'Android'], ['Windows', 'Windows'], ['Mac OS', 'Mac'], ['CrOS', 'Chromebook'], ['Linux', 'Linux']]
-    .find(([needle]) => ua.includes(needle!))?.[1]
+  const system = [
+    ['iPad', 'iPad'],
+    ['iPhone', 'iPhone'],
+    ['Android', 'Android'],
+    ['Windows', 'Windows'],
+    ['Mac OS', 'Mac'],
+    ['CrOS', 'Chromebook'],
+    ['Linux', 'Linux'],
+  ].find(([needle]) => ua.includes(needle!))?.[1]
   const browser = [['Edg/', 'Edge'], ['Firefox/', 'Firefox'], ['Chrome/', 'Chrome'], ['Safari/', 'Safari']]
     .find(([needle]) => ua.includes(needle!))?.[1]
   return [browser, system].filter(Boolean).join(' on ') || (ua.slice(0, 60) || 'Unknown device')

@@ -141,7 +141,15 @@ function sameEvent(stored: StoredEventOwner, userId: number, e: RowEventInput) {
  * The piece's new place (its version was already counted up per applied event), and the project's
  * status. True when this step finished the project.
  */
-async function movePiece(target: KnittablePiece, status: ProjectStatus, piece: LockedPiece, to: number, deviceId: string, now: Date, transaction: Transaction): Promise<boolean> {
+async function movePiece(
+  target: KnittablePiece,
+  status: ProjectStatus,
+  piece: LockedPiece,
+  to: number,
+  deviceId: string,
+  now: Date,
+  transaction: Transaction,
+): Promise<boolean> {
   const db = useDb()
   const done = to >= piece.totalRows
   piece.completedRows = to

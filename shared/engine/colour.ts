@@ -210,7 +210,9 @@ export function distinguishable(hexA: string, hexB: string): Distinguishability 
   }
   if (contrast < DISTINGUISHABLE_RULE.minContrast) {
     return {
-      deltaE, contrast, verdict: 'weak',
+      deltaE,
+      contrast,
+      verdict: 'weak',
       reason: `${shown}: the hues differ but the lightness is about the same (contrast below ${DISTINGUISHABLE_RULE.minContrast}:1); the pattern fades in low light, greyscale photos and photocopies`,
     }
   }

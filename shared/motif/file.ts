@@ -143,7 +143,10 @@ export function motifFromCsv(content: string): { name?: string; rows: string[] }
         firstLine = lineNo
       }
       else if (row.length !== width) {
-        throw new MotifFileError(`line ${lineNo}: ${row.length} values, expected ${width} like line ${firstLine}`, { line: lineNo, column: Math.min(row.length, width) + 1 })
+        throw new MotifFileError(`line ${lineNo}: ${row.length} values, expected ${width} like line ${firstLine}`, {
+          line: lineNo,
+          column: Math.min(row.length, width) + 1,
+        })
       }
       rows.push(row)
     }
@@ -158,7 +161,10 @@ function readCsvRow(line: string, lineNo: number): string {
   const values = line.split(',').map(v => v.trim())
   values.forEach((v, c) => {
     if (v !== '0' && v !== '1') {
-      throw new MotifFileError(`line ${lineNo}, column ${c + 1}: expected 0 or 1, got ${v === '' ? 'nothing' : v.length > 12 ? `${v.slice(0, 12)}…` : v}`, { line: lineNo, column: c + 1 })
+      throw new MotifFileError(`line ${lineNo}, column ${c + 1}: expected 0 or 1, got ${v === '' ? 'nothing' : v.length > 12 ? `${v.slice(0, 12)}…` : v}`, {
+        line: lineNo,
+        column: c + 1,
+      })
     }
   })
   return values.join('')

@@ -68,7 +68,20 @@ export function knitPosition(timeline: PieceTimeline, compiled: CompiledPlan, co
   const spans = sectionSpans(compiled, timeline.sections.length)
   const base = { totalRows, completedRows: done, totalPairs: Math.ceil(totalRows / 2) }
   if (done >= totalRows) {
-    return { ...base, finished: true, row: null, stepRows: null, pair: null, section: null, yarns: [], changeNow: false, rowsToChange: null, changeRow: null, nextYarns: [], upcoming: null }
+    return {
+      ...base,
+      finished: true,
+      row: null,
+      stepRows: null,
+      pair: null,
+      section: null,
+      yarns: [],
+      changeNow: false,
+      rowsToChange: null,
+      changeRow: null,
+      nextYarns: [],
+      upcoming: null,
+    }
   }
 
   const here = compiled.rows[done]!
@@ -88,9 +101,15 @@ export function knitPosition(timeline: PieceTimeline, compiled: CompiledPlan, co
   const changeNow = lo > 0 && compiled.changes[lo - 1] === done
   const nextSectionIndex = here.section + 1 < timeline.sections.length ? here.section + 1 : null
   const sectionEnd = span.start + span.rows // 0-based index of the first row after this section
-  const upcoming = nextSectionIndex !== null
-    ? { row: sectionEnd + 1, rowsAway: sectionEnd - done, kind: 'section' as const, text: describeSection(timeline.sections[nextSectionIndex]!, spans[nextSectionIndex]!.rows, yarnBySlot) }
-    : { row: totalRows, rowsAway: totalRows - done, kind: 'end' as const, text: 'End of the piece: cast off as the plan says' }
+  const upcoming
+    = nextSectionIndex !== null
+      ? {
+          row: sectionEnd + 1,
+          rowsAway: sectionEnd - done,
+          kind: 'section' as const,
+          text: describeSection(timeline.sections[nextSectionIndex]!, spans[nextSectionIndex]!.rows, yarnBySlot),
+        }
+      : { row: totalRows, rowsAway: totalRows - done, kind: 'end' as const, text: 'End of the piece: cast off as the plan says' }
 
   return {
     ...base,

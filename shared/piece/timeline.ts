@@ -69,7 +69,15 @@ export function borderedMotifTimeline(input: BorderedMotifInput): PieceTimeline 
   const chart = chartToRows(chartFromRows(input.motif.chart))
   const sections: PieceSection[] = []
   if (input.borderBefore > 0) sections.push({ kind: 'plain', label: input.labels?.before ?? 'Lower border', rows: input.borderBefore, yarn: main.slot })
-  sections.push({ kind: 'motif', label: input.motif.name, motifName: input.motif.name, chart, chartRows: input.chartRows, main: main.slot, contrast: contrast.slot })
+  sections.push({
+    kind: 'motif',
+    label: input.motif.name,
+    motifName: input.motif.name,
+    chart,
+    chartRows: input.chartRows,
+    main: main.slot,
+    contrast: contrast.slot,
+  })
   if (input.borderAfter > 0) sections.push({ kind: 'plain', label: input.labels?.after ?? 'Upper border', rows: input.borderAfter, yarn: main.slot })
   return {
     technique: input.technique,

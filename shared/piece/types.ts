@@ -9,14 +9,19 @@ export const slotSymbols = ['●', '▲', '■', '◆', '★', '✚'] as const
 
 export interface SlotYarn { slot: YarnSlot; name: string; hex: string; symbol: string }
 
-export type PieceSection =
-  | { kind: 'plain'; label: string; rows: number; yarn: YarnSlot; note?: string }
-  | {
-    kind: 'motif'; label: string; motifName: string
-    /** chartToRows format ('.' main, 'x' contrast); rows[0] is the first row knitted. */
-    chart: string[]
-    chartRows: number; main: YarnSlot; contrast: YarnSlot; note?: string
-  }
+export type PieceSection
+  = | { kind: 'plain'; label: string; rows: number; yarn: YarnSlot; note?: string }
+    | {
+      kind: 'motif'
+      label: string
+      motifName: string
+      /** chartToRows format ('.' main, 'x' contrast); rows[0] is the first row knitted. */
+      chart: string[]
+      chartRows: number
+      main: YarnSlot
+      contrast: YarnSlot
+      note?: string
+    }
 
 /** Everything needed to compile and show one piece's rows; frozen when the project is made. */
 export interface PieceTimeline {

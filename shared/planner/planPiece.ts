@@ -126,7 +126,11 @@ export function workPlanPiece(piece: PlanPieceInput, ctx: PlanPieceContext): Wor
       stitches += (s.change === 'increase' ? 2 : -2) * s.stitchesEachSide
       if (stitches < 1) throw new KnittingInputError(`${field}.stitchesEachSide: decreases leave no stitches`, { field: `${field}.stitchesEachSide` })
       const verb = s.change === 'increase' ? 'Increase' : 'Decrease'
-      push({ kind: 'plain', label: s.label || `${verb}s`, rows: s.rows, yarn: current, note: `${verb} 1 stitch each side ${text} (${stitches} stitches after)` }, 0, { change: s.change, steps })
+      push(
+        { kind: 'plain', label: s.label || `${verb}s`, rows: s.rows, yarn: current, note: `${verb} 1 stitch each side ${text} (${stitches} stitches after)` },
+        0,
+        { change: s.change, steps },
+      )
       numbers.push({ kind: s.kind, rows: s.rows, ...none, shaping: { steps, text, stitchesAfter: stitches } })
     }
     else {

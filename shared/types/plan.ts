@@ -18,14 +18,20 @@ export interface PlanYarnSlot { slot: string; yarnId: number }
  * - notes take no rows: they become the note of the next section with rows (the last one's
  *   when nothing follows).
  */
-export type PlanSection =
-  | { kind: 'cast-on-note' | 'setting-note' | 'cast-off-note'; text: string }
-  | { kind: 'plain'; label?: string; rows?: number; lengthCm?: number; yarn: string; stitchSize?: string }
-  | {
-    kind: 'motif'; label?: string; motifId: number; placement: 'centred' | { offset: number }
-    chartRows?: number; lengthCm?: number; main: string; contrast: string
-  }
-  | { kind: 'shaping'; label?: string; change: 'increase' | 'decrease'; stitchesEachSide: number; rows: number }
+export type PlanSection
+  = | { kind: 'cast-on-note' | 'setting-note' | 'cast-off-note'; text: string }
+    | { kind: 'plain'; label?: string; rows?: number; lengthCm?: number; yarn: string; stitchSize?: string }
+    | {
+      kind: 'motif'
+      label?: string
+      motifId: number
+      placement: 'centred' | { offset: number }
+      chartRows?: number
+      lengthCm?: number
+      main: string
+      contrast: string
+    }
+    | { kind: 'shaping'; label?: string; change: 'increase' | 'decrease'; stitchesEachSide: number; rows: number }
 
 export type PlanSectionKind = PlanSection['kind']
 
@@ -60,7 +66,15 @@ export interface PlanSummary {
   updatedAt: string
 }
 
-export type PlanWarningKind = 'long-floats' | 'colours-close' | 'needles-over-bed' | 'repeat-over-patterning-width' | 'low-stock' | 'no-gauge' | 'no-estimate' | 'section'
+export type PlanWarningKind
+  = | 'long-floats'
+    | 'colours-close'
+    | 'needles-over-bed'
+    | 'repeat-over-patterning-width'
+    | 'low-stock'
+    | 'no-gauge'
+    | 'no-estimate'
+    | 'section'
 
 export interface PlanWarning {
   kind: PlanWarningKind

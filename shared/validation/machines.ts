@@ -12,7 +12,13 @@ const machineFields = {
   passesPerColour: count(1, 8),
   notes,
 }
-export const machineBody = z.object({ studioId: id, ...machineFields, technique: technique.default('together'), passesPerColour: count(1, 8).default(2), notes: notes.default('') })
+export const machineBody = z.object({
+  studioId: id,
+  ...machineFields,
+  technique: technique.default('together'),
+  passesPerColour: count(1, 8).default(2),
+  notes: notes.default(''),
+})
 export const machinePatch = z.object(machineFields).partial()
 export type MachineBody = z.infer<typeof machineBody>
 export type MachinePatch = z.infer<typeof machinePatch>

@@ -58,7 +58,11 @@ export const planPieceSchema = z.object({
   // Each copy becomes a project piece named "<name> 2 of 2", which must fit the same column.
   const longest = longestPieceName(p.copies)
   if (p.name.length > longest) {
-    ctx.addIssue({ code: 'custom', path: ['name'], message: `must be at most ${longest} characters with ${p.copies} copies (each copy is named "…${copySuffix(p.copies, p.copies)}")` })
+    ctx.addIssue({
+      code: 'custom',
+      path: ['name'],
+      message: `must be at most ${longest} characters with ${p.copies} copies (each copy is named "…${copySuffix(p.copies, p.copies)}")`,
+    })
   }
 })
 

@@ -73,7 +73,7 @@ it('JavaScript each page loads, gzipped, against 200 KB', async () => {
     await page.waitForTimeout(500)
     await context.close()
     const kb = [...scripts.values()].reduce((a, b) => a + b, 0) / 1024
-    rows.push({ page: name, path, scripts: scripts.size, 'KB gzipped': +kb.toFixed(1), 'budget KB': 200, 'ratio to budget': +(kb / 200).toFixed(2) })
+    rows.push({ 'page': name, path, 'scripts': scripts.size, 'KB gzipped': +kb.toFixed(1), 'budget KB': 200, 'ratio to budget': +(kb / 200).toFixed(2) })
   }
   console.log('\nJavaScript loaded per page (script responses until network idle, each gzipped with node:zlib)')
   console.table(rows)
@@ -106,7 +106,9 @@ it('knit view: first paint offline from the service worker cache, 4× CPU thrott
   const measured = runs.slice(1) // the first warms the worker up
   const paint = median(measured.map(r => r.paint))
   const row = median(measured.map(r => r.row))
-  console.log(`\nknit view offline (service worker cache, 4× CPU throttling, median of ${measured.length}): first contentful paint ${paint.toFixed(0)} ms (ratio to 1 s: ${(paint / 1000).toFixed(2)}); knit row on screen ${row.toFixed(0)} ms (ratio ${(row / 1000).toFixed(2)})`)
+  console.log(
+    `\nknit view offline (service worker cache, 4× CPU throttling, median of ${measured.length}): first contentful paint ${paint.toFixed(0)} ms (ratio to 1 s: ${(paint / 1000).toFixed(2)}); knit row on screen ${row.toFixed(0)} ms (ratio ${(row / 1000).toFixed(2)})`,
+  )
   expect(measured.every(r => Number.isFinite(r.paint))).toBe(true)
 })
 
@@ -133,8 +135,8 @@ it('Lighthouse: performance, accessibility and best practices (goal ≥ 90 each)
         const score = (id: string) => Math.round((lhr.categories[id]?.score ?? Number.NaN) * 100)
         const misses = Object.values(lhr.audits).filter(a => a.score !== null && a.score < 0.9 && a.scoreDisplayMode === 'binary').map(a => a.id)
         rows.push({
-          settings, page: name, 'final URL': new URL(lhr.finalDisplayedUrl).pathname,
-          performance: score('performance'), accessibility: score('accessibility'), 'best-practices': score('best-practices'),
+          settings, 'page': name, 'final URL': new URL(lhr.finalDisplayedUrl).pathname,
+          'performance': score('performance'), 'accessibility': score('accessibility'), 'best-practices': score('best-practices'),
           'FCP s': +((lhr.audits['first-contentful-paint']?.numericValue ?? Number.NaN) / 1000).toFixed(1),
           'failed checks': misses.join(', '),
         })

@@ -80,11 +80,13 @@ it('tap to painted step in chromium with 4× CPU throttling', async () => {
   const frame = 1000 / 60
   console.log('\nknit view: tap → painted step (chromium, 4× CPU throttling, 50 taps after 10 warm-up)')
   console.table([
-    { figure: 'p50', ms: +percentile(sorted, 0.5).toFixed(1), 'ratio to one 60 Hz frame (16.7 ms)': +(percentile(sorted, 0.5) / frame).toFixed(2) },
-    { figure: 'p95', ms: +percentile(sorted, 0.95).toFixed(1), 'ratio to one 60 Hz frame (16.7 ms)': +(percentile(sorted, 0.95) / frame).toFixed(2) },
+    { 'figure': 'p50', 'ms': +percentile(sorted, 0.5).toFixed(1), 'ratio to one 60 Hz frame (16.7 ms)': +(percentile(sorted, 0.5) / frame).toFixed(2) },
+    { 'figure': 'p95', 'ms': +percentile(sorted, 0.95).toFixed(1), 'ratio to one 60 Hz frame (16.7 ms)': +(percentile(sorted, 0.95) / frame).toFixed(2) },
   ])
   const savedSorted = saves.slice(10).sort((a, b) => a - b)
-  console.log(`of which the IndexedDB write (event + place, one transaction): p50 ${percentile(savedSorted, 0.5).toFixed(1)} ms, p95 ${percentile(savedSorted, 0.95).toFixed(1)} ms`)
+  console.log(
+    `of which the IndexedDB write (event + place, one transaction): p50 ${percentile(savedSorted, 0.5).toFixed(1)} ms, p95 ${percentile(savedSorted, 0.95).toFixed(1)} ms`,
+  )
   expect(times.length).toBe(60)
 })
 
@@ -93,7 +95,7 @@ it('draining 5,000 queued events', async () => {
   const db = openFloatwiseDb(`bench-${randomUUID()}`, { indexedDB: new IDBFactory(), IDBKeyRange })
   const baseUrl = inject('baseUrl')
   const withSession = (input: string | URL | Request, init: RequestInit = {}) =>
-    fetch(input, { ...init, headers: { ...init.headers as Record<string, string>, cookie: api.cookie, 'x-forwarded-for': api.address } })
+    fetch(input, { ...init, headers: { ...init.headers as Record<string, string>, 'cookie': api.cookie, 'x-forwarded-for': api.address } })
   const detail = (await api.get(`/api/pieces/${pieceId}`)).body as PieceDetail
   await savePiece(db, detail)
   for (let i = 1; i <= 5000; i++) await recordStep(db, pieceId, { kind: 'advance', to: i, totalRows: detail.totalRows })
@@ -101,7 +103,9 @@ it('draining 5,000 queued events', async () => {
   const t0 = performance.now()
   const result = await syncer.flush()
   const seconds = (performance.now() - t0) / 1000
-  console.log(`\nsync drain: ${result.accepted} events in ${result.batches} requests, ${seconds.toFixed(1)} s → ${Math.round(result.accepted / seconds)} events per second`)
+  console.log(
+    `\nsync drain: ${result.accepted} events in ${result.batches} requests, ${seconds.toFixed(1)} s → ${Math.round(result.accepted / seconds)} events per second`,
+  )
   expect(result.accepted).toBe(5000)
   db.close()
 })
@@ -110,7 +114,7 @@ it('POST /api/sync under load against a trivial route of the same server', async
   // 50 tablets, each knitting its own piece: every request is one step on one of them.
   const pieceIds = await freshPieces(50)
   const baseUrl = inject('baseUrl')
-  const headers = { 'content-type': 'application/json', cookie: api.cookie, 'x-forwarded-for': api.address }
+  const headers = { 'content-type': 'application/json', 'cookie': api.cookie, 'x-forwarded-for': api.address }
   const run = (opts: autocannon.Options) => new Promise<autocannon.Result>((resolve, reject) =>
     autocannon({ connections: 50, duration: 8, ...opts }, (err, res) => (err ? reject(err) : resolve(res))))
   const trivial = await run({ url: `${baseUrl}/api/health`, headers })
@@ -130,9 +134,11 @@ it('POST /api/sync under load against a trivial route of the same server', async
   })
   console.log('\nPOST /api/sync (single-event batches, 50 connections, 8 s) against GET /api/health')
   console.table([
-    { route: 'GET /api/health', 'req/s': Math.round(trivial.requests.average), 'p99 ms': trivial.latency.p99, 'non-2xx': trivial.non2xx },
-    { route: 'POST /api/sync', 'req/s': Math.round(sync.requests.average), 'p99 ms': sync.latency.p99, 'non-2xx': sync.non2xx },
+    { 'route': 'GET /api/health', 'req/s': Math.round(trivial.requests.average), 'p99 ms': trivial.latency.p99, 'non-2xx': trivial.non2xx },
+    { 'route': 'POST /api/sync', 'req/s': Math.round(sync.requests.average), 'p99 ms': sync.latency.p99, 'non-2xx': sync.non2xx },
   ])
-  console.log(`ratio sync/trivial: ${(sync.requests.average / trivial.requests.average).toFixed(2)} (goal ≥ 0.3); sync p99 ${sync.latency.p99} ms (goal ≤ 50 ms)`)
+  console.log(
+    `ratio sync/trivial: ${(sync.requests.average / trivial.requests.average).toFixed(2)} (goal ≥ 0.3); sync p99 ${sync.latency.p99} ms (goal ≤ 50 ms)`,
+  )
   expect(sync.requests.total).toBeGreaterThan(0)
 })

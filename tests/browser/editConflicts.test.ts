@@ -49,8 +49,12 @@ async function waitForState(page: Page, state: string) {
 
 async function axeSerious(page: Page) {
   await addAxe(page)
-  const result = await page.evaluate(async () => (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe.run())
-  return result.violations.filter(v => v.impact === 'serious' || v.impact === 'critical').map(v => `${v.id}: ${v.nodes.map(n => n.target.join(' ')).join(', ')}`)
+  const result = await page.evaluate(async () =>
+    (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe.run(),
+  )
+  return result.violations
+    .filter(v => v.impact === 'serious' || v.impact === 'critical')
+    .map(v => `${v.id}: ${v.nodes.map(n => n.target.join(' ')).join(', ')}`)
 }
 
 describe('two people editing one motif', () => {
@@ -133,9 +137,13 @@ describe('two people editing one motif', () => {
 describe('two people editing one plan', () => {
   it('the later save sees what differs and takes theirs or keeps its own', async () => {
     const { api, studioId } = await studioApi(designer)
-    const plan = (await api.post('/api/plans', {
-      studioId, name: `Shared cardigan ${tag()}`, pieces: [{ name: 'Back', targetWidth: 40, targetLength: 50, sections: [{ kind: 'plain', rows: 10, yarn: 'A' }] }],
-    })).body
+    const plan = (
+      await api.post('/api/plans', {
+        studioId,
+        name: `Shared cardigan ${tag()}`,
+        pieces: [{ name: 'Back', targetWidth: 40, targetLength: 50, sections: [{ kind: 'plain', rows: 10, yarn: 'A' }] }],
+      })
+    ).body
     const idris = await openAs(designer, `/plans/${plan.id}`)
     const maren = await openAs(owner, `/plans/${plan.id}`)
     for (const { page } of [idris, maren]) await page.waitForSelector('[data-test="plan-title"]')

@@ -23,9 +23,20 @@ describe('names that look like code', () => {
     const motif = await api.post('/api/motifs', { studioId, name: hostile, rows: ['x.', '.x'] })
     expect(motif.status).toBe(201)
     const plan = await api.post('/api/plans', {
-      studioId, name: hostile,
+      studioId,
+      name: hostile,
       yarns: [],
-      pieces: [{ name: hostile, targetWidth: 20, targetLength: 10, sections: [{ kind: 'cast-on-note', text: hostile }, { kind: 'plain', rows: 4, yarn: 'A' }] }],
+      pieces: [
+        {
+          name: hostile,
+          targetWidth: 20,
+          targetLength: 10,
+          sections: [
+            { kind: 'cast-on-note', text: hostile },
+            { kind: 'plain', rows: 4, yarn: 'A' },
+          ],
+        },
+      ],
     })
     expect(plan.status, JSON.stringify(plan.body)).toBe(201)
     // The API gives the text back exactly as sent.

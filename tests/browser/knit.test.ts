@@ -174,7 +174,9 @@ describe('the knit view', () => {
       const context = await newTabletContext(browser, 'landscape', { dark })
       const page = await openKnitView(context, pieceId)
       await addAxe(page)
-      const result = await page.evaluate(async () => (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string; nodes: unknown[] }[] }> } }).axe.run())
+      const result = await page.evaluate(async () =>
+        (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string; nodes: unknown[] }[] }> } }).axe.run(),
+      )
       const serious = result.violations.filter(v => v.impact === 'serious' || v.impact === 'critical').map(v => `${v.id} (${v.nodes.length})`)
       expect(serious, dark ? 'dark theme' : 'light theme').toEqual([])
       if (dark) await screenshot(page, 'knit-landscape-dark')

@@ -53,13 +53,19 @@ async function waitForVerdict(page: Page, v: string) {
   await page.waitForFunction(want => document.querySelector('[data-test="motif-verdict"]')?.getAttribute('data-verdict') === want, v)
 }
 async function waitForSaved(page: Page) {
-  await page.waitForFunction(() => document.querySelector('[data-test="motif-save-state"]')?.getAttribute('data-state') === 'saved', undefined, { timeout: 15_000 })
+  await page.waitForFunction(() => document.querySelector('[data-test="motif-save-state"]')?.getAttribute('data-state') === 'saved', undefined, {
+    timeout: 15_000,
+  })
 }
 
 async function axeSerious(page: Page) {
   await addAxe(page)
-  const result = await page.evaluate(async () => (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe.run())
-  return result.violations.filter(v => v.impact === 'serious' || v.impact === 'critical').map(v => `${v.id}: ${v.nodes.map(n => n.target.join(' ')).join(', ')}`)
+  const result = await page.evaluate(async () =>
+    (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe.run(),
+  )
+  return result.violations
+    .filter(v => v.impact === 'serious' || v.impact === 'critical')
+    .map(v => `${v.id}: ${v.nodes.map(n => n.target.join(' ')).join(', ')}`)
 }
 
 describe('the motif editor', () => {
@@ -237,7 +243,11 @@ describe('motif from a picture', () => {
 
     await page.setInputFiles('[data-test="motif-picture-file"]', { name: 'notes.txt', mimeType: 'text/plain', buffer: Buffer.from('not a picture') })
     expect(await page.textContent('[data-test="motif-picture-error"]')).toContain('not a picture we can read')
-    await page.setInputFiles('[data-test="motif-picture-file"]', { name: 'broken.png', mimeType: 'image/png', buffer: Buffer.from('definitely not a PNG file at all') })
+    await page.setInputFiles('[data-test="motif-picture-file"]', {
+      name: 'broken.png',
+      mimeType: 'image/png',
+      buffer: Buffer.from('definitely not a PNG file at all'),
+    })
     await page.waitForSelector('[data-test="motif-picture-server-error"]')
     expect((await page.textContent('[data-test="motif-picture-server-error"]'))!.length).toBeGreaterThan(10)
 
@@ -315,19 +325,31 @@ describe('the library', () => {
     await page.click('[data-test="motif-sort-name"]') // name, descending
     await page.waitForFunction(() => new URL(location.href).searchParams.get('dir') === 'desc')
     await page.waitForFunction(() => document.querySelector('th[aria-sort="descending"]') !== null)
-    await page.waitForFunction(d => { const n = [...document.querySelectorAll('[data-test="motif-row"]')].map(r => r.getAttribute('data-name')).filter(x => d.includes(x!)); return n.join() === [...d].reverse().join() }, demo)
+    await page.waitForFunction((d) => {
+      const n = [...document.querySelectorAll('[data-test="motif-row"]')].map(r => r.getAttribute('data-name')).filter(x => d.includes(x!))
+      return n.join() === [...d].reverse().join()
+    }, demo)
 
     await page.selectOption('[data-test="motif-filter-verdict"]', 'long')
-    await page.waitForFunction(() => { const n = [...document.querySelectorAll('[data-test="motif-row"]')].map(r => r.getAttribute('data-name')); return n.includes('Lantern medallion') && !n.includes('Pebble check') })
+    await page.waitForFunction(() => {
+      const n = [...document.querySelectorAll('[data-test="motif-row"]')].map(r => r.getAttribute('data-name'))
+      return n.includes('Lantern medallion') && !n.includes('Pebble check')
+    })
     expect(await page.textContent('[data-test="motif-row"][data-name="Lantern medallion"] [data-test="motif-row-verdict"]')).toContain('Long floats')
     await page.selectOption('[data-test="motif-filter-verdict"]', '')
     await page.fill('[data-test="motif-search"]', 'marsh')
-    await page.waitForFunction(() => { const n = [...document.querySelectorAll('[data-test="motif-row"]')].map(r => r.getAttribute('data-name')); return n.length === 1 && n[0] === 'Marsh wave' })
+    await page.waitForFunction(() => {
+      const n = [...document.querySelectorAll('[data-test="motif-row"]')].map(r => r.getAttribute('data-name'))
+      return n.length === 1 && n[0] === 'Marsh wave'
+    })
     expect(await page.textContent('[data-test="motif-row-verdict"]')).toContain('Moderate floats')
     await page.fill('[data-test="motif-search"]', '')
     await page.fill('[data-test="motif-filter-width"]', '4')
     await page.keyboard.press('Tab')
-    await page.waitForFunction(() => { const n = [...document.querySelectorAll('[data-test="motif-row"]')].map(r => r.getAttribute('data-name')); return n.includes('Pebble check') && !n.includes('Marsh wave') })
+    await page.waitForFunction(() => {
+      const n = [...document.querySelectorAll('[data-test="motif-row"]')].map(r => r.getAttribute('data-name'))
+      return n.includes('Pebble check') && !n.includes('Marsh wave')
+    })
 
     // Paging: two a page.
     await page.goto('/motifs?pageSize=2')

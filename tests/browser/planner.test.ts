@@ -20,8 +20,12 @@ async function signedInPage(email: string, orientation: 'landscape' | 'portrait'
 
 async function seriousAxeViolations(page: Page) {
   await addAxe(page)
-  const result = await page.evaluate(async () => (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe.run())
-  return result.violations.filter(v => v.impact === 'serious' || v.impact === 'critical').map(v => `${v.id} (${v.nodes.map(n => n.target.join(' ')).join(', ')})`)
+  const result = await page.evaluate(async () =>
+    (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe.run(),
+  )
+  return result.violations
+    .filter(v => v.impact === 'serious' || v.impact === 'critical')
+    .map(v => `${v.id} (${v.nodes.map(n => n.target.join(' ')).join(', ')})`)
 }
 
 async function chooseOption(page: Page, selector: string, text: string) {
@@ -128,7 +132,9 @@ describe('the planner', () => {
     await page.mouse.move(grip!.x + 20, grip!.y - 10, { steps: 4 })
     await page.mouse.move(target!.x + 40, target!.y + 10, { steps: 12 })
     await page.mouse.up()
-    await page.waitForFunction(() => [...document.querySelectorAll('[data-test="plan-section"]')].map(e => e.getAttribute('data-kind')).join() === 'cast-on-note,plain,shaping,motif')
+    await page.waitForFunction(
+      () => [...document.querySelectorAll('[data-test="plan-section"]')].map(e => e.getAttribute('data-kind')).join() === 'cast-on-note,plain,shaping,motif',
+    )
     await page.click('[data-test="plan-save"]')
     await page.waitForFunction(() => document.querySelector('[data-test="form-message"]')?.textContent?.includes('Saved'))
     await page.reload()

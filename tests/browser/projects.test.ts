@@ -16,7 +16,13 @@ describe('projects', () => {
     await page.waitForSelector('[data-test="project-list"]')
     // The page offers to carry on with the piece knitted most recently (other test files knit
     // pieces of their own as this knitter, so ask the server which one that is).
-    const pieces = await page.evaluate(() => fetch('/api/pieces').then(r => r.json())) as { projectName: string; name: string; completedRows: number; totalRows: number; lastKnittedAt: string | null }[]
+    const pieces = (await page.evaluate(() => fetch('/api/pieces').then(r => r.json()))) as {
+      projectName: string
+      name: string
+      completedRows: number
+      totalRows: number
+      lastKnittedAt: string | null
+    }[]
     const latest = pieces.find(p => p.completedRows < p.totalRows && p.lastKnittedAt)!
     expect(await page.textContent('[data-test="resume-piece"]')).toContain(`${latest.projectName} · ${latest.name}`)
     expect(await page.textContent('[data-test="project-list"]')).toContain('Marsh wave jumper')
@@ -53,7 +59,9 @@ describe('projects', () => {
     await page.waitForSelector('[data-test="form-message"]')
     expect(await page.textContent('[data-test="new-project-form"]')).toMatch(/name: is required|is required/)
     await addAxe(page)
-    const result = await page.evaluate(async () => (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string }[] }> } }).axe.run())
+    const result = await page.evaluate(async () =>
+      (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string }[] }> } }).axe.run(),
+    )
     expect(result.violations.filter(v => v.impact === 'serious' || v.impact === 'critical').map(v => v.id)).toEqual([])
     await context.close()
   })

@@ -23,7 +23,9 @@ describe('signing in as the demo knitter', () => {
     await screenshot(page, 'dashboard-knitter-landscape')
 
     // Every navigation target is a touch-sized target (≥ 44 px).
-    const sizes = await page.$$eval('[data-test="nav-link"]', links => links.filter(l => (l as HTMLElement).offsetParent).map(l => l.getBoundingClientRect().height))
+    const sizes = await page.$$eval('[data-test="nav-link"]', links =>
+      links.filter(l => (l as HTMLElement).offsetParent).map(l => l.getBoundingClientRect().height),
+    )
     expect(sizes.length).toBe(4)
     for (const h of sizes) expect(h).toBeGreaterThanOrEqual(44)
 

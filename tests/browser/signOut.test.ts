@@ -16,7 +16,12 @@ afterAll(async () => {
 /** A knitter of a new studio with a piece to knit, and an owner of another studio. */
 async function twoPeople() {
   const { studio, knitter, outsider } = await makeStudio()
-  const { project, pieces } = await makeProject({ studioId: studio.id, knitterId: knitter.id, name: `Sign-out jumper ${Math.random().toString(36).slice(2, 6)}`, pieces: ['Back'] })
+  const { project, pieces } = await makeProject({
+    studioId: studio.id,
+    knitterId: knitter.id,
+    name: `Sign-out jumper ${Math.random().toString(36).slice(2, 6)}`,
+    pieces: ['Back'],
+  })
   return { knitter, outsider, projectName: project.name, pieceId: pieces[0]!.id }
 }
 
@@ -37,7 +42,9 @@ async function serverRows(email: string, pieceId: number) {
 
 async function seriousAxeViolations(page: Page) {
   await addAxe(page) // the page's CSP refuses an injected script tag
-  const result = await page.evaluate(async () => (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string }[] }> } }).axe.run())
+  const result = await page.evaluate(async () =>
+    (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string }[] }> } }).axe.run(),
+  )
   return result.violations.filter(v => v.impact === 'serious' || v.impact === 'critical').map(v => v.id)
 }
 
@@ -68,7 +75,9 @@ describe('signing out', () => {
     await page.setViewportSize({ width: 1024, height: 768 })
     await page.click('[data-test="sign-out"]')
     await page.waitForSelector('[data-test="sign-out-warning"]')
-    expect(await page.textContent('[data-test="sign-out-warning"]')).toMatch(/1 row step tapped on this device is not saved to the server yet; signing out now would lose it\./)
+    expect(await page.textContent('[data-test="sign-out-warning"]')).toMatch(
+      /1 row step tapped on this device is not saved to the server yet; signing out now would lose it\./,
+    )
     expect(await page.textContent('[data-test="sign-out-warning"]')).toContain(`Back · ${projectName}`)
     // Staying is the default: it has the focus, so Enter or a stray tap on the keyboard keeps the rows.
     expect(await page.evaluate(() => (document.activeElement as HTMLElement | null)?.dataset.test)).toBe('sign-out-stay')

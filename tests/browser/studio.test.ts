@@ -19,7 +19,9 @@ describe('the studio page', () => {
     expect(await page.textContent('[data-test="member-list"]')).toContain('Tamsin Roe')
     await screenshot(page, 'studio-owner-landscape')
     await addAxe(page)
-    const result = await page.evaluate(async () => (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string }[] }> } }).axe.run())
+    const result = await page.evaluate(async () =>
+      (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string }[] }> } }).axe.run(),
+    )
     expect(result.violations.filter(v => v.impact === 'serious' || v.impact === 'critical').map(v => v.id)).toEqual([])
     await context.close()
   })

@@ -122,7 +122,9 @@ describe('password reset', () => {
     expect(res.status).toBe(202)
     // The request is queued like any other and settled by the sender: wait for that, not for a clock.
     testDb()
-    await expect.poll(async () => (await QueuedMail.findOne({ where: { kind: 'password-reset', toAddress: email } }))?.sentAt ?? null, { timeout: 20_000 }).not.toBeNull()
+    await expect
+      .poll(async () => (await QueuedMail.findOne({ where: { kind: 'password-reset', toAddress: email } }))?.sentAt ?? null, { timeout: 20_000 })
+      .not.toBeNull()
     expect((await QueuedMail.findOne({ where: { toAddress: email } }))?.subject).toBe('(no account: nothing sent)')
     expect(mailTo(email)).toEqual([])
   })

@@ -66,7 +66,11 @@ describe('motifs', () => {
     const read = await owner.get<MotifDetail>(`/api/motifs/${made.id}`)
     expect(read.headers.get('etag')).toBe('"0"')
     expect(ok(await designer.patch<MotifDetail>(`/api/motifs/${made.id}`, { name: 'Tagged' }, { 'if-match': read.headers.get('etag')! })).version).toBe(1)
-    expectChangedElsewhere(await owner.patch(`/api/motifs/${made.id}`, { name: 'Stale tag' }, { 'if-match': '"0"' }), ok(await owner.get(`/api/motifs/${made.id}`)), 'motif')
+    expectChangedElsewhere(
+      await owner.patch(`/api/motifs/${made.id}`, { name: 'Stale tag' }, { 'if-match': '"0"' }),
+      ok(await owner.get(`/api/motifs/${made.id}`)),
+      'motif',
+    )
     // A bare number is read as the same tag; `*` means any version (no check).
     expect(ok(await owner.patch<MotifDetail>(`/api/motifs/${made.id}`, { name: 'Bare tag' }, { 'if-match': '1' })).version).toBe(2)
     expect(ok(await owner.patch<MotifDetail>(`/api/motifs/${made.id}`, { name: 'Any tag' }, { 'if-match': '*' })).version).toBe(3)
@@ -119,7 +123,15 @@ describe('plans', () => {
   beforeAll(async () => {
     motifId = ok<MotifDetail>(await designer.post('/api/motifs', { studioId: s.studio.id, name: 'Plan checks', rows: ['x.', '.x'] }), 201).id
   })
-  const piece = (name: string) => ({ name, targetWidth: 20, targetLength: 10, sections: [{ kind: 'plain', rows: 4, yarn: 'A' }, { kind: 'motif', motifId, placement: 'centred', chartRows: 2, main: 'A', contrast: 'B' }] })
+  const piece = (name: string) => ({
+    name,
+    targetWidth: 20,
+    targetLength: 10,
+    sections: [
+      { kind: 'plain', rows: 4, yarn: 'A' },
+      { kind: 'motif', motifId, placement: 'centred', chartRows: 2, main: 'A', contrast: 'B' },
+    ],
+  })
   const newPlan = async () => ok<PlanDetail>(await designer.post('/api/plans', { studioId: s.studio.id, name: 'Shared jumper', pieces: [piece('Back')] }), 201)
 
   it('two people read version v: the first change is saved as v+1, the second is a 409 with the current plan', async () => {
@@ -138,7 +150,10 @@ describe('plans', () => {
     expect(now.pieces.map(p => p.name)).toEqual(['Front', 'Back'])
     expect(await storedRows([s.studio.id])).toEqual(before)
 
-    expect(ok(await owner.patch<PlanDetail>(`/api/plans/${made.id}`, { name: 'Owner jumper' }, { 'if-match': `"${now.version}"` }))).toMatchObject({ version: 2, name: 'Owner jumper' })
+    expect(ok(await owner.patch<PlanDetail>(`/api/plans/${made.id}`, { name: 'Owner jumper' }, { 'if-match': `"${now.version}"` }))).toMatchObject({
+      version: 2,
+      name: 'Owner jumper',
+    })
     // Publishing moves the version as well; a change naming none is saved as before.
     expect(ok(await designer.patch<PlanDetail>(`/api/plans/${made.id}`, { published: true, version: 2 })).version).toBe(3)
     expect((await owner.patch(`/api/plans/${made.id}`, { notes: 'From an old copy', version: 2 })).status).toBe(409)

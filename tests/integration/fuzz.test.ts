@@ -52,8 +52,28 @@ async function foreignStock(f: Fixture) {
   const studioId = f.elsewhere.id
   const stock = await makeStock(studioId)
   const machine = await Machine.create({ studioId, name: 'Foreign machine', needlePitchMm: 4.5, needles: 200, patterningWidth: 24 })
-  const swatch = await Swatch.create({ studioId, machineId: null, mainYarnId: null, contrastYarnId: null, stitches: 30, rows: 40, width: 10, height: 10, unit: 'cm', grams: 6 })
-  const plan = await Plan.create({ studioId, name: 'Foreign plan', machineId: null, swatchId: null, yarns: [], published: true, createdBy: null, updatedBy: null })
+  const swatch = await Swatch.create({
+    studioId,
+    machineId: null,
+    mainYarnId: null,
+    contrastYarnId: null,
+    stitches: 30,
+    rows: 40,
+    width: 10,
+    height: 10,
+    unit: 'cm',
+    grams: 6,
+  })
+  const plan = await Plan.create({
+    studioId,
+    name: 'Foreign plan',
+    machineId: null,
+    swatchId: null,
+    yarns: [],
+    published: true,
+    createdBy: null,
+    updatedBy: null,
+  })
   const { project, pieces } = await makeProject({ studioId, knitterId: f.outsider.id, pieces: ['Back'] })
   const session = await spareSession(f.outsider)
   return { studioId, ...stock, machine, swatch, plan, project, piece: pieces[0]!, session }
@@ -164,7 +184,14 @@ describe('generated bodies', () => {
       fc.uint8Array({ minLength: 1, maxLength: 300 }).map(junk => Buffer.concat([png.subarray(0, 33), junk])),
     )
     const field = fc.constantFrom(...Object.keys(fields))
-    const form = fc.record({ field, value: fc.oneof(hostileValue.map(v => typeof v === 'string' ? v : JSON.stringify(v) ?? ''), hostileQueryValue), picture: fc.oneof(fc.constant(png), pictures) })
+    const form = fc.record({
+      field,
+      value: fc.oneof(
+        hostileValue.map(v => (typeof v === 'string' ? v : (JSON.stringify(v) ?? ''))),
+        hostileQueryValue,
+      ),
+      picture: fc.oneof(fc.constant(png), pictures),
+    })
     await fuzz(fc.asyncProperty(form, async ({ field: name, value, picture }) => {
       const body = new FormData()
       for (const [k, v] of Object.entries({ ...fields, [name]: value })) body.append(k, v)

@@ -22,7 +22,9 @@ describe('motif and yarn lists', () => {
 
   it('lists the yarn stock and refuses a missing or bad studio id with a 400 naming it', async () => {
     const knitter = await signedIn(s.knitter.email, fixturePassword)
-    expect((await knitter.get(`/api/yarns?studioId=${s.studio.id}`)).body).toEqual([expect.objectContaining({ name: 'Oat', hex: '#e8dcc0', metresPer100g: 400 })])
+    expect((await knitter.get(`/api/yarns?studioId=${s.studio.id}`)).body).toEqual([
+      expect.objectContaining({ name: 'Oat', hex: '#e8dcc0', metresPer100g: 400 }),
+    ])
     const missing = await knitter.get('/api/yarns')
     expect(missing.status).toBe(400)
     expect(missing.body.message).toContain('studioId')

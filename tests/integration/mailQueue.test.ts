@@ -82,7 +82,8 @@ describe('mail limits', () => {
   it('invitations: one person sends at most 30 an hour', async () => {
     const f = await makeStudio()
     const owner = await signedIn(f.owner.email, fixturePassword)
-    for (let i = 0; i < 30; i++) expect((await owner.post(`/api/studios/${f.studio.id}/invitations`, { email: uniqueEmail('many'), role: 'knitter' })).status).toBe(201)
+    for (let i = 0; i < 30; i++)
+      expect((await owner.post(`/api/studios/${f.studio.id}/invitations`, { email: uniqueEmail('many'), role: 'knitter' })).status).toBe(201)
     const refused = await owner.post(`/api/studios/${f.studio.id}/invitations`, { email: uniqueEmail('many'), role: 'knitter' })
     expect(refused.status).toBe(429)
     expect(refused.body.message).toMatch(/invitations sent by you/)

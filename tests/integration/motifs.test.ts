@@ -250,7 +250,12 @@ describe('export and import', () => {
   })
 
   it.each([
-    ['a bad CSV cell', 'csv', '# floatwise motif "x"\n0,1,0,0,1,1,0\n0,1,0,0,1,1,0\n0,1,0,0,1,1,0\n0,1,0,0,1,1,2\n', 'line 5, column 7: expected 0 or 1, got 2'],
+    [
+      'a bad CSV cell',
+      'csv',
+      '# floatwise motif "x"\n0,1,0,0,1,1,0\n0,1,0,0,1,1,0\n0,1,0,0,1,1,0\n0,1,0,0,1,1,2\n',
+      'line 5, column 7: expected 0 or 1, got 2',
+    ],
     ['a short CSV line', 'csv', '0,1,0\n0,1\n', 'line 2: 2 values, expected 3 like line 1'],
     ['an empty CSV', 'csv', '# nothing here\n\n', 'no rows'],
     ['JSON that is not JSON', 'json', '{ rows: ', 'not valid JSON'],

@@ -26,7 +26,10 @@ afterAll(closeTestDb)
 
 // Untyped answers: a refusal's body is { message }, not a preview.
 const preview = (client: ApiClient, bytes: Uint8Array, type = 'image/png') =>
-  client.post('/api/motifs/picture-preview', pictureForm({ studioId: s.studio.id, width: 4, height: 3 }, bytes, type === 'image/png' ? 'bomb.png' : 'bomb.webp', type))
+  client.post(
+    '/api/motifs/picture-preview',
+    pictureForm({ studioId: s.studio.id, width: 4, height: 3 }, bytes, type === 'image/png' ? 'bomb.png' : 'bomb.webp', type),
+  )
 
 async function healthMs(baseUrl = inject('baseUrl')) {
   const start = performance.now()

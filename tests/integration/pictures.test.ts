@@ -66,7 +66,14 @@ describe('from a picture to a motif', () => {
     const png = chartPicture(chartRows)
     const made = await upload(designer, { name: 'Drawn chart' }, png)
     expect(made.status, JSON.stringify(made.body)).toBe(201)
-    expect(made.body).toMatchObject({ name: 'Drawn chart', width: 4, height: 3, rows: chartRows, published: false, picture: { url: `/api/motifs/${made.body.id}/picture` } })
+    expect(made.body).toMatchObject({
+      name: 'Drawn chart',
+      width: 4,
+      height: 3,
+      rows: chartRows,
+      published: false,
+      picture: { url: `/api/motifs/${made.body.id}/picture` },
+    })
     expect(made.body.floatReport).not.toBeNull()
 
     const back = await rawGet(designer, made.body.picture!.url)

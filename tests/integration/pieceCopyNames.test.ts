@@ -22,7 +22,8 @@ describe('copies of a plan piece named "<piece> 1 of 2"', () => {
     designer = await signedIn(s.designer.email, fixturePassword)
     knitter = await signedIn(s.knitter.email, fixturePassword)
     stock = await makeStock(s.studio.id)
-    machineId = (await designer.post('/api/machines', { studioId: s.studio.id, name: 'Copies machine', needlePitchMm: 4.5, needles: 200, patterningWidth: 24 })).body.id
+    machineId = (await designer.post('/api/machines', { studioId: s.studio.id, name: 'Copies machine', needlePitchMm: 4.5, needles: 200, patterningWidth: 24 }))
+      .body.id
     swatchId = (await designer.post('/api/swatches', { studioId: s.studio.id, stitches: 30, rows: 40, width: 10, height: 10, unit: 'cm', grams: 6 })).body.id
   })
 

@@ -21,16 +21,42 @@ async function made(res: Promise<{ status: number; body: any }>, status = 201) {
   return r.body
 }
 
-const machine = (overrides: Record<string, unknown> = {}) => ({ studioId: s.studio.id, name: 'Standard gauge', needlePitchMm: 4.5, needles: 200, patterningWidth: 24, ...overrides })
-const yarn = (overrides: Record<string, unknown> = {}) => ({ studioId: s.studio.id, name: 'Oat 4-ply', hex: '#E8DCC0', weightCategory: 1, metresPer100g: 400, gramsOnHand: 100, ...overrides })
+const machine = (overrides: Record<string, unknown> = {}) => ({
+  studioId: s.studio.id,
+  name: 'Standard gauge',
+  needlePitchMm: 4.5,
+  needles: 200,
+  patterningWidth: 24,
+  ...overrides,
+})
+const yarn = (overrides: Record<string, unknown> = {}) => ({
+  studioId: s.studio.id,
+  name: 'Oat 4-ply',
+  hex: '#E8DCC0',
+  weightCategory: 1,
+  metresPer100g: 400,
+  gramsOnHand: 100,
+  ...overrides,
+})
 
 describe('machines and yarn stock', () => {
   it('designers add and change, any member reads, only the owner deletes, other studios see nothing', async () => {
     const m = await made(as.designer.post('/api/machines', machine()))
-    expect(m).toMatchObject({ name: 'Standard gauge', needlePitchMm: 4.5, needles: 200, patterningWidth: 24, technique: 'together', passesPerColour: 2, notes: '' })
+    expect(m).toMatchObject({
+      name: 'Standard gauge',
+      needlePitchMm: 4.5,
+      needles: 200,
+      patterningWidth: 24,
+      technique: 'together',
+      passesPerColour: 2,
+      notes: '',
+    })
     expect((await as.knitter.post('/api/machines', machine())).status).toBe(403)
     expect((await as.knitter.get(`/api/machines?studioId=${s.studio.id}`)).body.map((x: any) => x.id)).toContain(m.id)
-    expect((await made(as.designer.patch(`/api/machines/${m.id}`, { technique: 'colour-by-colour', needlePitchMm: 9 }), 200))).toMatchObject({ technique: 'colour-by-colour', needlePitchMm: 9 })
+    expect(await made(as.designer.patch(`/api/machines/${m.id}`, { technique: 'colour-by-colour', needlePitchMm: 9 }), 200)).toMatchObject({
+      technique: 'colour-by-colour',
+      needlePitchMm: 9,
+    })
     expect((await as.outsider.patch(`/api/machines/${m.id}`, { name: 'Mine now' })).status).toBe(404)
     expect((await as.designer.delete(`/api/machines/${m.id}`)).status).toBe(403)
     expect((await as.owner.delete(`/api/machines/${m.id}`)).status).toBe(204)
@@ -42,7 +68,14 @@ describe('machines and yarn stock', () => {
     expect((await made(as.designer.patch(`/api/yarns/${y.id}`, { gramsOnHand: 42.5 }), 200)).gramsOnHand).toBe(42.5)
     const list = (await as.knitter.get(`/api/yarns?studioId=${s.studio.id}`)).body
     // The list keeps the fields it always had (YarnListItem).
-    expect(list.find((x: any) => x.id === y.id)).toMatchObject({ id: y.id, name: 'Oat 4-ply', hex: '#e8dcc0', weightCategory: 1, metresPer100g: 400, gramsOnHand: 42.5 })
+    expect(list.find((x: any) => x.id === y.id)).toMatchObject({
+      id: y.id,
+      name: 'Oat 4-ply',
+      hex: '#e8dcc0',
+      weightCategory: 1,
+      metresPer100g: 400,
+      gramsOnHand: 42.5,
+    })
     expect((await as.outsider.get(`/api/yarns?studioId=${s.studio.id}`)).status).toBe(404)
     expect((await as.knitter.delete(`/api/yarns/${y.id}`)).status).toBe(403)
     expect((await as.owner.delete(`/api/yarns/${y.id}`)).status).toBe(204)
@@ -69,7 +102,19 @@ describe('swatches', () => {
     // "18 sts and 24 rows to 4 in" is 4.5 stitches per inch — Australian Knitting,
     // "Knitting and the Magic Formula" (published). Medium (4) holds 16–20 sts per 4 in — Craft
     // Yarn Council, Standard Yarn Weight System (published).
-    const sw = await made(as.designer.post('/api/swatches', { studioId: s.studio.id, stitchSize: 'dial 6 and a bit', stitches: 18, rows: 24, width: 4, height: 4, unit: 'in', grams: 12, washed: true }))
+    const sw = await made(
+      as.designer.post('/api/swatches', {
+        studioId: s.studio.id,
+        stitchSize: 'dial 6 and a bit',
+        stitches: 18,
+        rows: 24,
+        width: 4,
+        height: 4,
+        unit: 'in',
+        grams: 12,
+        washed: true,
+      }),
+    )
     expect(sw).toMatchObject({ stitchSize: 'dial 6 and a bit', stitches: 18, rows: 24, width: 4, height: 4, unit: 'in', grams: 12, washed: true })
     expect(sw.gauge.stitchesPer4in).toBeCloseTo(18, 9)
     expect(sw.gauge.rowsPer4in).toBeCloseTo(24, 9)
@@ -91,7 +136,15 @@ describe('swatches', () => {
 
   it('refuses a machine or yarn of another studio, naming the field', async () => {
     const theirs = await made(as.outsider.post('/api/yarns', { ...yarn(), studioId: s.elsewhere.id }))
-    const res = await as.designer.post('/api/swatches', { studioId: s.studio.id, stitches: 30, rows: 40, width: 10, height: 10, unit: 'cm', mainYarnId: theirs.id })
+    const res = await as.designer.post('/api/swatches', {
+      studioId: s.studio.id,
+      stitches: 30,
+      rows: 40,
+      width: 10,
+      height: 10,
+      unit: 'cm',
+      mainYarnId: theirs.id,
+    })
     expect(res.status).toBe(400)
     expect(res.body.data.issues[0].path).toEqual(['mainYarnId'])
     const unit = await as.designer.post('/api/swatches', { studioId: s.studio.id, stitches: 30, rows: 40, width: 10, height: 10, unit: 'mm' })
@@ -138,7 +191,14 @@ describe('plans', () => {
     expect(n.sections[1]).toMatchObject({ kind: 'plain', rows: 196 })
     expect(n.targetRows).toBe(196)
     // 36 shaping steps over 140 rows → every 3rd row ×4, every 4th row ×32 — same source (published).
-    expect(n.sections[2].shaping).toEqual({ steps: [{ every: 3, times: 4 }, { every: 4, times: 32 }], text: 'every 3rd row ×4, every 4th row ×32', stitchesAfter: 50 + 72 })
+    expect(n.sections[2].shaping).toEqual({
+      steps: [
+        { every: 3, times: 4 },
+        { every: 4, times: 32 },
+      ],
+      text: 'every 3rd row ×4, every 4th row ×32',
+      stitchesAfter: 50 + 72,
+    })
     // A 2-stitch motif centred on 50 needles: 25 whole repeats, nothing left over.
     expect(n.sections[3].placement).toEqual({ offset: 0, chartWidth: 2, fullRepeats: 25, leftoverLeft: 0, leftoverRight: 0 })
     expect(n.sections[3].maxFloat).toEqual([1, 1])
@@ -155,10 +215,28 @@ describe('plans', () => {
     const wide = await made(as.designer.post('/api/motifs', { studioId: s.studio.id, name: 'Long floats', rows: ['x.........'] }))
     const grey = await made(as.designer.post('/api/yarns', yarn({ name: 'Oat twin', hex: '#e6dac0' })))
     const small = await made(as.designer.post('/api/machines', machine({ name: 'Small bed', needles: 40, patterningWidth: 8 })))
-    const plan = await made(as.designer.post('/api/plans', handbookPlan({
-      machineId: small.id, floatLimit: 3, yarns: [{ slot: 'A', yarnId: stock.oat.id }, { slot: 'B', yarnId: grey.id }],
-      pieces: [{ name: 'Panel', targetWidth: 9, targetLength: 10, unit: 'in', sections: [{ kind: 'motif', motifId: wide.id, placement: { offset: 3 }, chartRows: 2, main: 'A', contrast: 'B' }] }],
-    })))
+    const plan = await made(
+      as.designer.post(
+        '/api/plans',
+        handbookPlan({
+          machineId: small.id,
+          floatLimit: 3,
+          yarns: [
+            { slot: 'A', yarnId: stock.oat.id },
+            { slot: 'B', yarnId: grey.id },
+          ],
+          pieces: [
+            {
+              name: 'Panel',
+              targetWidth: 9,
+              targetLength: 10,
+              unit: 'in',
+              sections: [{ kind: 'motif', motifId: wide.id, placement: { offset: 3 }, chartRows: 2, main: 'A', contrast: 'B' }],
+            },
+          ],
+        }),
+      ),
+    )
     const kinds = plan.warnings.map((w: any) => w.kind)
     expect(kinds).toEqual(expect.arrayContaining(['long-floats', 'colours-close', 'needles-over-bed', 'repeat-over-patterning-width']))
     expect(plan.contrast[0]).toMatchObject({ slots: ['A', 'B'], verdict: 'hard' })
@@ -213,7 +291,19 @@ describe('plans', () => {
       { kind: 'plain', rows, yarn: 'A' },
       { kind: 'motif', motifId: stock.motif.id, placement: 'centred', chartRows: 2, main: 'A', contrast: 'B' },
     ] }]
-    const plan = await made(as.designer.post('/api/plans', handbookPlan({ swatchId: swatch.id, yarns: [{ slot: 'A', yarnId: stock.oat.id }, { slot: 'B', yarnId: scrap.id }], pieces: pocket(4) })))
+    const plan = await made(
+      as.designer.post(
+        '/api/plans',
+        handbookPlan({
+          swatchId: swatch.id,
+          yarns: [
+            { slot: 'A', yarnId: stock.oat.id },
+            { slot: 'B', yarnId: scrap.id },
+          ],
+          pieces: pocket(4),
+        }),
+      ),
+    )
     await made(as.designer.patch(`/api/plans/${plan.id}`, { published: true }), 200)
     const planned = async () => (await as.knitter.get(`/api/yarns?studioId=${s.studio.id}`)).body.find((x: any) => x.id === scrap.id)
     expect((await planned()).plannedGrams).toBeCloseTo(0.2225, 9)
@@ -263,7 +353,10 @@ describe('plans', () => {
     const link = linkIn(mail, '/invitations/')
     expect(link.searchParams.get('then')).toBe(`/plans/${plan.id}`)
     const guest = apiClient()
-    const accepted = await guest.post(`${link.pathname}/accept`.replace('/invitations/', '/api/invitations/'), { name: 'Guest Knitter', password: 'guest-password-1' })
+    const accepted = await guest.post(`${link.pathname}/accept`.replace('/invitations/', '/api/invitations/'), {
+      name: 'Guest Knitter',
+      password: 'guest-password-1',
+    })
     expect(accepted.status, JSON.stringify(accepted.body)).toBe(200)
     expect(accepted.body.studios).toContainEqual(expect.objectContaining({ id: s.studio.id, role: 'knitter' }))
     expect((await guest.get(`/api/plans/${plan.id}`)).status).toBe(200)
@@ -274,7 +367,10 @@ describe('plans', () => {
     [{ floatLimit: 0 }, 'floatLimit'],
     [{ yarns: [{ slot: 'Z', yarnId: 1 }] }, 'yarns.0.slot'],
     [{ pieces: [{ name: 'Back', targetWidth: 50, targetLength: 60, sections: [{ kind: 'plain', yarn: 'A' }] }] }, 'pieces.0.sections.0.rows'],
-    [{ pieces: [{ name: 'Back', targetWidth: 50, targetLength: 60, sections: [{ kind: 'shaping', change: 'sideways', stitchesEachSide: 2, rows: 10 }] }] }, 'pieces.0.sections.0.change'],
+    [
+      { pieces: [{ name: 'Back', targetWidth: 50, targetLength: 60, sections: [{ kind: 'shaping', change: 'sideways', stitchesEachSide: 2, rows: 10 }] }] },
+      'pieces.0.sections.0.change',
+    ],
     [{ pieces: [{ name: 'Back', targetWidth: 0, targetLength: 60, sections: [{ kind: 'plain', rows: 2, yarn: 'A' }] }] }, 'pieces.0.targetWidth'],
   ])('POST /api/plans names the bad field (%j → %s)', async (overrides, field) => {
     const res = await as.designer.post('/api/plans', handbookPlan(overrides))

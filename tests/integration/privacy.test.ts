@@ -28,11 +28,20 @@ describe('a published plan that uses a draft motif', () => {
     const studioId = s.studio.id
     const machine = await made(as.designer.post('/api/machines', { studioId, name: 'Bed', needlePitchMm: 4.5, needles: 200, patterningWidth: 24 }))
     const swatch = await made(as.designer.post('/api/swatches', { studioId, stitches: 30, rows: 40, width: 10, height: 10, unit: 'cm', grams: 8 }))
-    const yarn = (name: string, hex: string) => made(as.designer.post('/api/yarns', { studioId, name, hex, weightCategory: 1, metresPer100g: 400, gramsOnHand: 500 }))
+    const yarn = (name: string, hex: string) =>
+      made(as.designer.post('/api/yarns', { studioId, name, hex, weightCategory: 1, metresPer100g: 400, gramsOnHand: 500 }))
     const [oat, navy] = [await yarn('Oat', '#e8dcc0'), await yarn('Navy', '#1c2a4a')]
     const draft = await made(as.designer.post('/api/motifs', { studioId, name: secret, rows: ['xx..', '..xx'] }))
     const open = await made(as.designer.post('/api/motifs', { studioId, name: 'Open stripes', rows: ['x.', '..'], published: true }))
-    const motif = (motifId: number, label?: string) => ({ kind: 'motif', motifId, placement: 'centred', chartRows: 2, main: 'A', contrast: 'B', ...(label ? { label } : {}) })
+    const motif = (motifId: number, label?: string) => ({
+      kind: 'motif',
+      motifId,
+      placement: 'centred',
+      chartRows: 2,
+      main: 'A',
+      contrast: 'B',
+      ...(label ? { label } : {}),
+    })
     plan = await made(as.designer.post('/api/plans', {
       studioId, name: 'Autumn jumper', machineId: machine.id, swatchId: swatch.id, published: true,
       yarns: [{ slot: 'A', yarnId: oat.id }, { slot: 'B', yarnId: navy.id }],
@@ -86,7 +95,13 @@ describe('members\' e-mail addresses', () => {
 
   it.each(['designer', 'knitter'] as const)('a %s sees names and roles, no e-mail', async (who) => {
     const { members } = await made(as[who].get(`/api/studios/${s.studio.id}/members`), 200)
-    expect(members.map((m: any) => [m.name, m.role]).sort()).toEqual([[s.owner.name, 'owner'], [s.designer.name, 'designer'], [s.knitter.name, 'knitter']].sort())
+    expect(members.map((m: any) => [m.name, m.role]).sort()).toEqual(
+      [
+        [s.owner.name, 'owner'],
+        [s.designer.name, 'designer'],
+        [s.knitter.name, 'knitter'],
+      ].sort(),
+    )
     for (const m of members) expect(m).not.toHaveProperty('email')
   })
 

@@ -34,7 +34,10 @@ describe('POST /api/projects', () => {
         { slot: 'B', name: 'Fixture navy', hex: '#1c2a4a', symbol: '▲', yarnId: stock.contrast.id },
       ],
     })
-    expect(res.body.pieces.map((p: any) => [p.name, p.position, p.totalRows, p.completedRows, p.version])).toEqual([['Back', 1, 28, 0, 0], ['Front', 2, 28, 0, 0]])
+    expect(res.body.pieces.map((p: any) => [p.name, p.position, p.totalRows, p.completedRows, p.version])).toEqual([
+      ['Back', 1, 28, 0, 0],
+      ['Front', 2, 28, 0, 0],
+    ])
 
     const piece = await as.knitter.get(`/api/pieces/${res.body.pieces[0].id}`)
     expect(piece.body.timeline).toEqual({
@@ -49,7 +52,10 @@ describe('POST /api/projects', () => {
   })
 
   it('colour-by-colour costs 2 × passes machine rows per chart row; the same piece name may repeat', async () => {
-    const res = await as.designer.post('/api/projects', form({ technique: 'colour-by-colour', passesPerColour: 3, borderBefore: 0, pieces: [{ name: 'Sleeve' }, { name: 'Sleeve' }] }))
+    const res = await as.designer.post(
+      '/api/projects',
+      form({ technique: 'colour-by-colour', passesPerColour: 3, borderBefore: 0, pieces: [{ name: 'Sleeve' }, { name: 'Sleeve' }] }),
+    )
     expect(res.status, JSON.stringify(res.body)).toBe(201)
     expect(res.body.knitter.id).toBe(s.designer.id)
     expect(res.body.pieces.map((p: any) => [p.name, p.totalRows])).toEqual([['Sleeve', 12 * 6 + 6], ['Sleeve', 12 * 6 + 6]])
@@ -209,7 +215,10 @@ describe('demo data', () => {
     // Browser tests may knit the demo pieces on: the seeded places are read from the log.
     expect(detail.pieces.map((p: any) => [p.name, p.totalRows])).toEqual([['Back', 126], ['Front', 126], ['Sleeve', 126], ['Sleeve', 126]])
     expect(detail.pieces[0]).toMatchObject({ completedRows: 126, finishedAt: expect.any(String) })
-    const seeded = await RowEvent.findAll({ where: { pieceId: [detail.pieces[0].id, detail.pieces[1].id], deviceId: 'demo-workroom-tablet' }, order: [['seq', 'ASC']] })
+    const seeded = await RowEvent.findAll({
+      where: { pieceId: [detail.pieces[0].id, detail.pieces[1].id], deviceId: 'demo-workroom-tablet' },
+      order: [['seq', 'ASC']],
+    })
     // The back in one jump; the front jumped to 23, then a session of 12 pairs to 47 (the studio's pace).
     expect(seeded.map(e => [e.pieceId, e.kind, e.toRows, e.outcome])).toEqual([
       [detail.pieces[0].id, 'jump', 126, 'applied'], [detail.pieces[1].id, 'jump', 23, 'applied'],

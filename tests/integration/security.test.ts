@@ -18,12 +18,22 @@ afterAll(closeTestDb)
 async function sealedSession(user: { id: number; email: string; name: string }, ageMs: number, sealExpired = false, sid: string | null = randomUUID()) {
   const createdAt = Date.now() - ageMs
   // A live session row for the id, as signing in makes (server/utils/sessions.ts).
-  if (sid) await UserSession.create({ userId: user.id, sidHash: createHash('sha256').update(sid).digest('hex'), device: 'sealed by the test', address: '', lastSeenAt: new Date() })
+  if (sid)
+    await UserSession.create({
+      userId: user.id,
+      sidHash: createHash('sha256').update(sid).digest('hex'),
+      device: 'sealed by the test',
+      address: '',
+      lastSeenAt: new Date(),
+    })
   const session = { id: randomUUID(), createdAt, data: { user, loggedInAt: createdAt, ...(sid ? { sid } : {}) } }
   // An expired seal: sealed "two minutes ago" for one second (past the 60 s clock skew allowed).
   const expiry = sealExpired ? { ttl: 1000, localtimeOffsetMsec: -120_000 } : { ttl: 0 }
   // Node's WebCrypto types and iron's disagree on buffer types only; the object is the one h3 uses.
-  const sealed = await iron.seal(globalThis.crypto as unknown as Parameters<typeof iron.seal>[0], session, process.env.NUXT_SESSION_PASSWORD!, { ...iron.defaults, ...expiry })
+  const sealed = await iron.seal(globalThis.crypto as unknown as Parameters<typeof iron.seal>[0], session, process.env.NUXT_SESSION_PASSWORD!, {
+    ...iron.defaults,
+    ...expiry,
+  })
   return `nuxt-session=${sealed}`
 }
 
@@ -90,7 +100,12 @@ describe('security at the edge', () => {
     const f = await makeStudio()
     const owner = await signedIn(f.owner.email, fixturePassword)
     const registered = (await makeUser('known')).email
-    const plan = await owner.post('/api/plans', { studioId: f.studio.id, name: 'Shared', published: true, pieces: [{ name: 'Back', targetWidth: 20, targetLength: 10, sections: [{ kind: 'plain', rows: 4, yarn: 'A' }] }] })
+    const plan = await owner.post('/api/plans', {
+      studioId: f.studio.id,
+      name: 'Shared',
+      published: true,
+      pieces: [{ name: 'Back', targetWidth: 20, targetLength: 10, sections: [{ kind: 'plain', rows: 4, yarn: 'A' }] }],
+    })
     expect(plan.status).toBe(201)
     const answers = async (email: string) => {
       const calls = [
@@ -121,7 +136,9 @@ describe('security at the edge', () => {
   })
 
   it('answers an oversized body with 413', async () => {
-    const res = await apiClient().post('/api/auth/login', JSON.stringify({ email: 'a@b.test', password: 'x'.repeat(2 * 1024 * 1024) }), { 'content-type': 'application/json' })
+    const res = await apiClient().post('/api/auth/login', JSON.stringify({ email: 'a@b.test', password: 'x'.repeat(2 * 1024 * 1024) }), {
+      'content-type': 'application/json',
+    })
     expect(res.status).toBe(413)
   })
 
@@ -170,9 +187,22 @@ describe('the Host a request names (DNS rebinding)', () => {
   it('answers 421 to a Host that is not ours on every route: the shell, pages, scripts, the API, reads and writes', async () => {
     const baseUrl = inject('baseUrl')
     const script = (await rawRequest(baseUrl, '/')).body.match(/src="(\/_nuxt\/[^"]+\.js)"/)![1]!
-    const calls = [['GET', '/'], ['GET', '/index.html'], ['GET', '/login'], ['GET', script], ['GET', '/api/health'], ['GET', '/api/me'], ['GET', '/api/no/such'], ['POST', '/api/auth/login']]
+    const calls = [
+      ['GET', '/'],
+      ['GET', '/index.html'],
+      ['GET', '/login'],
+      ['GET', script],
+      ['GET', '/api/health'],
+      ['GET', '/api/me'],
+      ['GET', '/api/no/such'],
+      ['POST', '/api/auth/login'],
+    ]
     for (const [method, path] of calls) {
-      const res = await rawRequest(baseUrl, path!, { method, headers: { 'host': 'rebound.example', 'content-type': 'application/json' }, body: method === 'POST' ? '{}' : undefined })
+      const res = await rawRequest(baseUrl, path!, {
+        method,
+        headers: { 'host': 'rebound.example', 'content-type': 'application/json' },
+        body: method === 'POST' ? '{}' : undefined,
+      })
       expect(res.status, `${method} ${path}`).toBe(421)
       expect(res.body, `${method} ${path}`).toContain('rebound.example')
     }
@@ -217,7 +247,12 @@ describe('a server without a proxy (NUXT_TRUST_PROXY=false), with NUXT_ALLOWED_H
       expect((await rawRequest(server.baseUrl, '/api/health', { headers: { host } })).status, host).toBe(200)
     }
     const body = JSON.stringify({ email: uniqueEmail('allowed') })
-    const write = (origin: string) => rawRequest(server.baseUrl, '/api/auth/password-reset', { method: 'POST', headers: { 'host': `knitroom.local:${server.port}`, origin, 'content-type': 'application/json' }, body })
+    const write = (origin: string) =>
+      rawRequest(server.baseUrl, '/api/auth/password-reset', {
+        method: 'POST',
+        headers: { 'host': `knitroom.local:${server.port}`, origin, 'content-type': 'application/json' },
+        body,
+      })
     expect((await write(`http://knitroom.local:${server.port}`)).status).toBe(202)
     expect((await write(`http://studio.example:${server.port}`)).status).toBe(403)
     expect((await rawRequest(server.baseUrl, '/api/health', { headers: { host: 'knitroom.local.rebound.example' } })).status).toBe(421)
@@ -245,7 +280,13 @@ describe('response headers', () => {
 
   it('marks every API answer as not to be stored, signed in or not, while scripts keep their long cache', async () => {
     const knitter = await signedIn('knitter@floatwise.test', 'floatwise-demo')
-    for (const [client, path] of [[knitter, '/api/me'], [knitter, '/api/projects'], [knitter, '/api/yarns'], [apiClient(), '/api/me'], [apiClient(), '/api/health']] as const) {
+    for (const [client, path] of [
+      [knitter, '/api/me'],
+      [knitter, '/api/projects'],
+      [knitter, '/api/yarns'],
+      [apiClient(), '/api/me'],
+      [apiClient(), '/api/health'],
+    ] as const) {
       const res = await client.get(path)
       expect(res.headers.get('cache-control'), `${path} (${res.status})`).toBe('no-store')
     }
@@ -261,7 +302,11 @@ describe('response headers', () => {
 
   it('sends the standard status text with an error: 404 Not Found, 401 Unauthorized, not "Server Error"', async () => {
     const baseUrl = inject('baseUrl')
-    for (const [path, status, text] of [['/api/no/such', 404, 'Not Found'], ['/_nuxt/no-such-chunk.js', 404, 'Not Found'], ['/api/me', 401, 'Unauthorized']] as const) {
+    for (const [path, status, text] of [
+      ['/api/no/such', 404, 'Not Found'],
+      ['/_nuxt/no-such-chunk.js', 404, 'Not Found'],
+      ['/api/me', 401, 'Unauthorized'],
+    ] as const) {
       const res = await rawRequest(baseUrl, path)
       expect([res.status, res.statusText], path).toEqual([status, text])
     }

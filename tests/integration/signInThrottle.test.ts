@@ -100,7 +100,9 @@ describe('sign-in throttling by account and address', () => {
     const address = freshAddress()
     testDb()
     const now = Date.now()
-    await SignInFailure.bulkCreate(Array.from({ length: 20 }, (_, i) => ({ email: uniqueEmail('spray'), address, at: new Date(now - 10 * minute + i * second) })))
+    await SignInFailure.bulkCreate(
+      Array.from({ length: 20 }, (_, i) => ({ email: uniqueEmail('spray'), address, at: new Date(now - 10 * minute + i * second) })),
+    )
     const res = await signIn(address, user.email, fixturePassword)
     expect(res.status).toBe(429)
     // The oldest of the twenty leaves the window in five minutes.
@@ -127,7 +129,10 @@ describe('sign-in throttling by account and address', () => {
 
     // Once the newest failure is 30 seconds old, the owner is in.
     testDb()
-    await SignInFailure.update({ at: new Date(Date.now() - 31 * second) }, { where: { email: user.email, at: { [Op.gt]: new Date(Date.now() - 31 * second) } } })
+    await SignInFailure.update(
+      { at: new Date(Date.now() - 31 * second) },
+      { where: { email: user.email, at: { [Op.gt]: new Date(Date.now() - 31 * second) } } },
+    )
     expect((await signIn(freshAddress(), user.email, fixturePassword)).status).toBe(200)
   })
 
@@ -196,7 +201,11 @@ describe('the client address behind our proxy', () => {
     const address = freshAddress()
     testDb()
     await SignInFailure.bulkCreate(Array.from({ length: 20 }, () => ({ email: uniqueEmail('spray'), address, at: new Date() })))
-    const res = await apiClient().post('/api/auth/login', { email: user.email, password: fixturePassword }, { 'x-forwarded-for': `${freshAddress()}, ${address}` })
+    const res = await apiClient().post(
+      '/api/auth/login',
+      { email: user.email, password: fixturePassword },
+      { 'x-forwarded-for': `${freshAddress()}, ${address}` },
+    )
     expect(res.status).toBe(429)
   })
 

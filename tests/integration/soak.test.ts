@@ -7,6 +7,14 @@ it('loses and duplicates no row event through a database restart and a server ki
   const report = await runSoak({ seconds: 8, devices: 20, sharedEvery: 3, stepMs: 400, outageMs: 1000 })
   printSoak(report)
   expect(report.recorded).toBeGreaterThan(100)
-  expect(report).toMatchObject({ duplicates: 0, lost: 0, piecesOff: 0, stillQueued: 0, serverErrorsAfterOutage: 0, otherServerErrors: 0, unavailableWithoutRetryAfter: 0 })
+  expect(report).toMatchObject({
+    duplicates: 0,
+    lost: 0,
+    piecesOff: 0,
+    stillQueued: 0,
+    serverErrorsAfterOutage: 0,
+    otherServerErrors: 0,
+    unavailableWithoutRetryAfter: 0,
+  })
   expect(report.stored).toBe(report.recorded)
 }, 180_000)

@@ -15,13 +15,28 @@ beforeAll(async () => {
 })
 afterAll(closeTestDb)
 
-const swatch = (overrides: Record<string, unknown>) => ({ studioId: s?.studio.id, stitches: 30, rows: 40, width: 10, height: 10, unit: 'cm', grams: 6, ...overrides })
+const swatch = (overrides: Record<string, unknown>) => ({
+  studioId: s?.studio.id,
+  stitches: 30,
+  rows: 40,
+  width: 10,
+  height: 10,
+  unit: 'cm',
+  grams: 6,
+  ...overrides,
+})
 
 describe('a measure below what its column keeps', () => {
   it.each([
     ['/api/swatches', 'height', 8.4e-323, '0.01', () => swatch({ height: 8.4e-323 })],
     ['/api/swatches', 'width', 0.004, '0.01', () => swatch({ width: 0.004 })],
-    ['/api/machines', 'needlePitchMm', 0.001, '0.01', () => ({ studioId: s.studio.id, name: 'Tiny pitch', needlePitchMm: 0.001, needles: 200, patterningWidth: 24 })],
+    [
+      '/api/machines',
+      'needlePitchMm',
+      0.001,
+      '0.01',
+      () => ({ studioId: s.studio.id, name: 'Tiny pitch', needlePitchMm: 0.001, needles: 200, patterningWidth: 24 }),
+    ],
     ['/api/yarns', 'metresPer100g', 0.04, '0.1', () => ({ studioId: s.studio.id, name: 'Thin yarn', hex: '#112233', weightCategory: 1, metresPer100g: 0.04 })],
   ] as const)('POST %s with %s %s is a 400 naming the field and the step %s, and stores nothing', async (path, field, _, step, body) => {
     const before = await storedRows([s.studio.id])

@@ -20,7 +20,7 @@ function device(deviceId: string, sessionCookie = () => cookie) {
   async function sync(body: unknown) {
     const res = await fetch(`${baseUrl}/api/sync`, {
       method: 'POST',
-      headers: { 'content-type': 'application/json', cookie: sessionCookie() },
+      headers: { 'content-type': 'application/json', 'cookie': sessionCookie() },
       body: JSON.stringify(body),
     })
     return { status: res.status, body: await res.json() as any }
@@ -69,7 +69,9 @@ describe('POST /api/sync', () => {
     expect(res.status).toBe(200)
     expect(res.body.accepted).toHaveLength(3)
     expect(res.body.rejected).toEqual([])
-    expect(res.body.pieces).toEqual([{ id: piece.id, completedRows: 9, totalRows: 14, version: 3, updatedAt: expect.any(String), lastKnittedAt: expect.any(String), conflict: null }])
+    expect(res.body.pieces).toEqual([
+      { id: piece.id, completedRows: 9, totalRows: 14, version: 3, updatedAt: expect.any(String), lastKnittedAt: expect.any(String), conflict: null },
+    ])
     const stored = await Piece.findByPk(piece.id)
     expect(stored).toMatchObject({ completedRows: 9, version: 3, lastDeviceId: 'tablet-a-order' })
     expect((await log(piece.id)).map(e => e.outcome)).toEqual(['applied', 'applied', 'applied'])

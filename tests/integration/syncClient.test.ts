@@ -1,6 +1,16 @@
 import { IDBFactory, IDBKeyRange } from 'fake-indexeddb'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import { createSyncer, getDeviceId, openFloatwiseDb, readPieceState, recordStep, resolveConflict, savePiece, type FloatwiseDb, type PieceDetail } from '../../offline'
+import {
+  createSyncer,
+  getDeviceId,
+  openFloatwiseDb,
+  readPieceState,
+  recordStep,
+  resolveConflict,
+  savePiece,
+  type FloatwiseDb,
+  type PieceDetail,
+} from '../../offline'
 import { Piece, RowEvent } from '../../server/db/models'
 import { apiClient, type ApiClient } from '../support/api'
 import { startAppServer } from '../support/appServer'
@@ -41,7 +51,10 @@ async function tablet(baseUrl = inject('baseUrl')): Promise<Tablet> {
     const n = ++t.requests
     t.batchSizes.push((JSON.parse(String(init.body)) as { events: unknown[] }).events.length)
     await t.beforeRequest?.(n)
-    const res = await fetch(input, { ...init, headers: { ...init.headers as Record<string, string>, 'cookie': client.cookie, 'x-forwarded-for': client.address } })
+    const res = await fetch(input, {
+      ...init,
+      headers: { ...(init.headers as Record<string, string>), 'cookie': client.cookie, 'x-forwarded-for': client.address },
+    })
     await t.afterResponse?.(n)
     return res
   }

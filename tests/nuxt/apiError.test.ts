@@ -4,7 +4,10 @@ import FormField from '~/components/form/FormField.vue'
 
 describe('describeApiError', () => {
   it('puts zod issues next to their fields and keeps the server message', () => {
-    const error = { statusCode: 400, data: { message: 'Invalid body: email: must be an e-mail address', data: { issues: [{ path: ['email'], message: 'must be an e-mail address' }] } } }
+    const error = {
+      statusCode: 400,
+      data: { message: 'Invalid body: email: must be an e-mail address', data: { issues: [{ path: ['email'], message: 'must be an e-mail address' }] } },
+    }
     expect(describeApiError(error)).toEqual({ message: 'Invalid body: email: must be an e-mail address', fields: { email: 'must be an e-mail address' } })
   })
 

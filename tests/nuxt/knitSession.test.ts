@@ -9,7 +9,10 @@ import { fakeSyncServer, pieceDetail, plainTimeline, type FakeSyncServer } from 
 // The knit loop as the knit page runs it: useKnitSession on the signed-in person's store
 // (stores/offline.ts, the real Dexie code on fake IndexedDB, a fresh tablet per test), its real
 // syncer talking to a fake POST /api/sync that keeps the server's rule (tests/support/offline.ts).
-const person = { user: { id: 5, email: 'tamsin@example.test', name: 'Tamsin Roe' }, studios: [{ id: 9, name: 'Saltmarsh', role: 'knitter' as const, personal: false }] }
+const person = {
+  user: { id: 5, email: 'tamsin@example.test', name: 'Tamsin Roe' },
+  studios: [{ id: 9, name: 'Saltmarsh', role: 'knitter' as const, personal: false }],
+}
 const sleeve = pieceDetail({ id: 7, name: 'Sleeve', projectName: 'Harbour jumper', totalRows: 20, timeline: plainTimeline('Welt', 20) })
 
 let server: FakeSyncServer
@@ -100,7 +103,11 @@ describe('useKnitSession', () => {
     online = true
     window.dispatchEvent(new Event('online'))
     await expect.poll(() => server.stored.size).toBe(3)
-    expect([...server.stored.values()].map(e => [e.kind, e.to, e.outcome])).toEqual([['advance', 2, 'applied'], ['advance', 4, 'applied'], ['back', 2, 'applied']])
+    expect([...server.stored.values()].map(e => [e.kind, e.to, e.outcome])).toEqual([
+      ['advance', 2, 'applied'],
+      ['advance', 4, 'applied'],
+      ['back', 2, 'applied'],
+    ])
     expect(server.piece(7)).toMatchObject({ completedRows: 2, version: 3 })
     await expect.poll(() => knit.pending.value).toBe(0)
     await expect.poll(() => knit.syncState.value?.status).toBe('synced')

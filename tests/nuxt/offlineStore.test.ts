@@ -12,7 +12,10 @@ import { fakeSyncServer, pieceDetail, plainTimeline, type FakeSyncServer } from 
 const { reloads } = vi.hoisted(() => ({ reloads: [] as unknown[] }))
 mockNuxtImport('reloadNuxtApp', () => (options: unknown) => { reloads.push(options) })
 
-const personNumbered = (id: number) => ({ user: { id, email: `knitter-${id}@example.test`, name: `Knitter ${id}` }, studios: [{ id: 9, name: 'Saltmarsh', role: 'knitter' as const, personal: false }] })
+const personNumbered = (id: number) => ({
+  user: { id, email: `knitter-${id}@example.test`, name: `Knitter ${id}` },
+  studios: [{ id: 9, name: 'Saltmarsh', role: 'knitter' as const, personal: false }],
+})
 const sleeve = pieceDetail({ id: 7, name: 'Sleeve', projectName: 'Harbour jumper', totalRows: 20, timeline: plainTimeline('Welt', 20) })
 
 let tablet: IDBFactory

@@ -1,5 +1,16 @@
 import { IDBFactory, IDBKeyRange } from 'fake-indexeddb'
-import { createSyncer, openFloatwiseDb, readPieceState, recordStep, resolveConflict, savePiece, type FloatwiseDb, type PieceDetail, type RowEvent, type Syncer } from '../../offline'
+import {
+  createSyncer,
+  openFloatwiseDb,
+  readPieceState,
+  recordStep,
+  resolveConflict,
+  savePiece,
+  type FloatwiseDb,
+  type PieceDetail,
+  type RowEvent,
+  type Syncer,
+} from '../../offline'
 
 // One simulated tablet: the app's own offline store (its own fake IndexedDB) and syncer,
 // a knitter tapping at a machine, and a journal of every event the store recorded.

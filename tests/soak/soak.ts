@@ -75,7 +75,11 @@ export async function runSoak(options: SoakOptions): Promise<SoakReport> {
   await mariadb.start()
   const url = mariadb.ensureDatabase('floatwise_soak', 'floatwise', keptSecret(join(root, '.data/db-password')), { fresh: true })
   const dbScript = typescriptRun(root, 'scripts/db.ts')
-  const migrated = spawnSync(process.execPath, [...dbScript.args, 'migrate'], { cwd: root, env: { ...process.env, ...dbScript.env, DATABASE_URL: url }, encoding: 'utf8' })
+  const migrated = spawnSync(process.execPath, [...dbScript.args, 'migrate'], {
+    cwd: root,
+    env: { ...process.env, ...dbScript.env, DATABASE_URL: url },
+    encoding: 'utf8',
+  })
   if (migrated.status !== 0) throw new Error(`migrations failed:\n${migrated.stderr}`)
   const sequelize = createSequelize(url)
   initModels(sequelize)
@@ -162,10 +166,14 @@ export function printSoak(r: SoakReport, print: (line: string) => void = console
   print(`events sent: ${r.recorded}`)
   print(`events stored: ${r.stored} (${r.conflicts} kept as conflicts)`)
   print(`requests: ${r.requests} answered (${Object.entries(r.byStatus).map(([s, n]) => `${s}: ${n}`).join(', ')}), ${r.networkErrors} without an answer`)
-  print(`503 (database not answering): ${r.unavailable}, of which without Retry-After: ${r.unavailableWithoutRetryAfter}; other 5xx (500 …): ${r.otherServerErrors}`)
+  print(
+    `503 (database not answering): ${r.unavailable}, of which without Retry-After: ${r.unavailableWithoutRetryAfter}; other 5xx (500 …): ${r.otherServerErrors}`,
+  )
   print(`5xx more than 1 s after the database was back: ${r.serverErrorsAfterOutage}`)
   print(`latency: p50 ${r.p50.toFixed(0)} ms, p99 ${r.p99.toFixed(0)} ms`)
-  print(`server memory (RSS): ${r.memoryMb.start} MB at start, ${r.memoryMb.beforeKill} MB before the kill, ${r.memoryMb.end} MB at the end (after the restart)`)
+  print(
+    `server memory (RSS): ${r.memoryMb.start} MB at start, ${r.memoryMb.beforeKill} MB before the kill, ${r.memoryMb.end} MB at the end (after the restart)`,
+  )
   print(`still queued on devices: ${r.stillQueued}`)
   print(`pieces not matching a replay of their log: ${r.piecesOff}`)
   print(`duplicates: ${r.duplicates}`)

@@ -58,7 +58,8 @@ export async function makeStudio(extraKnitters = 0) {
 /** A studio's stock for project tests: a published and a draft motif, and two yarns. */
 export async function makeStock(studioId: number) {
   testDb()
-  const motif = (name: string, rows: string[], published: boolean) => Motif.create({ studioId, name, published, createdBy: null, updatedBy: null, ...motifRecord(rows) })
+  const motif = (name: string, rows: string[], published: boolean) =>
+    Motif.create({ studioId, name, published, createdBy: null, updatedBy: null, ...motifRecord(rows) })
   return {
     motif: await motif('Fixture zigzag', ['x..', '.x.', '..x', '.x.'], true),
     draft: await motif('Fixture draft', ['xx..', '..xx'], false),

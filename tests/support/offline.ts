@@ -12,7 +12,13 @@ export function freshDb(options: OpenOptions = {}): FloatwiseDb {
 
 /** The store keeps the timeline as it is; a plain piece is enough for these tests. */
 export function plainTimeline(label: string, rows: number): PieceDetail['timeline'] {
-  return { technique: 'together', passesPerColour: 1, needles: 60, sections: [{ kind: 'plain', label, rows, yarn: 'A' }], yarns: [{ slot: 'A', name: 'Cream', hex: '#efe6d2', symbol: '●' }] }
+  return {
+    technique: 'together',
+    passesPerColour: 1,
+    needles: 60,
+    sections: [{ kind: 'plain', label, rows, yarn: 'A' }],
+    yarns: [{ slot: 'A', name: 'Cream', hex: '#efe6d2', symbol: '●' }],
+  }
 }
 
 export function pieceDetail(overrides: Partial<PieceDetail> = {}): PieceDetail {
@@ -43,7 +49,9 @@ interface StoredEvent extends RowEvent { deviceId: string; outcome: 'applied' | 
  * conflict. A device's conflict stands while its latest event on the piece is one.
  */
 export function fakeSyncServer(initial: Record<number, { completedRows: number; version?: number }> = { 1: { completedRows: 0 } }) {
-  const pieces = new Map(Object.entries(initial).map(([id, p]) => [Number(id), { completedRows: p.completedRows, version: p.version ?? 0, lastDevice: 'seed' }]))
+  const pieces = new Map(
+    Object.entries(initial).map(([id, p]) => [Number(id), { completedRows: p.completedRows, version: p.version ?? 0, lastDevice: 'seed' }]),
+  )
   const stored = new Map<string, StoredEvent>()
   const requests: SyncRequest[] = []
   const failures: (FakeFailure | 'ok')[] = []
@@ -87,7 +95,8 @@ export function fakeSyncServer(initial: Record<number, { completedRows: number; 
     requests.push(body)
     const failure = failures.shift()
     if (failure === 'network') throw new TypeError('fetch failed')
-    if (typeof failure === 'number') return Response.json({ message: `status ${failure}` }, { status: failure, headers: failure === 503 && retryAfter ? { 'retry-after': retryAfter } : {} })
+    if (typeof failure === 'number')
+      return Response.json({ message: `status ${failure}` }, { status: failure, headers: failure === 503 && retryAfter ? { 'retry-after': retryAfter } : {} })
     const result = answer(body)
     if (failure === 'lost-answer') throw new TypeError('fetch failed') // applied, but the answer never arrived
     return Response.json(result)

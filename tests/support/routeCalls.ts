@@ -56,7 +56,13 @@ async function freshInvitation(f: Fixture) {
 }
 
 export function spareSession(user: User) {
-  return UserSession.create({ userId: user.id, sidHash: randomUUID().replaceAll('-', '').padEnd(64, '0'), device: 'Spare test device', address: '', lastSeenAt: new Date() })
+  return UserSession.create({
+    userId: user.id,
+    sidHash: randomUUID().replaceAll('-', '').padEnd(64, '0'),
+    device: 'Spare test device',
+    address: '',
+    lastSeenAt: new Date(),
+  })
 }
 
 async function spareMember(f: Fixture) {
@@ -68,12 +74,30 @@ async function spareMember(f: Fixture) {
 export const roleMatrix: Row[] = [
   { route: 'GET /api/health', call: () => ({ method: 'GET', path: '/api/health' }), expect: same(200) },
   { route: 'GET /api/me', call: () => ({ method: 'GET', path: '/api/me' }), expect: signedInOnly(200) },
-  { route: 'POST /api/auth/register', call: () => ({ method: 'POST', path: '/api/auth/register', body: { email: uniqueEmail('matrix'), password: 'matrix-password', name: 'M' } }), expect: same(201) },
-  { route: 'POST /api/auth/login', call: f => ({ method: 'POST', path: '/api/auth/login', body: { email: f.knitter.email, password: fixturePassword } }), expect: same(200), ends: 'session' },
+  {
+    route: 'POST /api/auth/register',
+    call: () => ({ method: 'POST', path: '/api/auth/register', body: { email: uniqueEmail('matrix'), password: 'matrix-password', name: 'M' } }),
+    expect: same(201),
+  },
+  {
+    route: 'POST /api/auth/login',
+    call: f => ({ method: 'POST', path: '/api/auth/login', body: { email: f.knitter.email, password: fixturePassword } }),
+    expect: same(200),
+    ends: 'session',
+  },
   { route: 'POST /api/auth/logout', call: () => ({ method: 'POST', path: '/api/auth/logout' }), expect: same(200), ends: 'session' },
-  { route: 'POST /api/auth/confirm-address', call: () => ({ method: 'POST', path: '/api/auth/confirm-address', body: { token: 'x'.repeat(43) } }), expect: same(400) },
+  {
+    route: 'POST /api/auth/confirm-address',
+    call: () => ({ method: 'POST', path: '/api/auth/confirm-address', body: { token: 'x'.repeat(43) } }),
+    expect: same(400),
+  },
   { route: 'POST /api/me/confirmation-mail', call: () => ({ method: 'POST', path: '/api/me/confirmation-mail' }), expect: signedInOnly(409) },
-  { route: 'POST /api/me/password', call: () => ({ method: 'POST', path: '/api/me/password', body: { current: fixturePassword, password: fixturePassword } }), expect: signedInOnly(200), ends: 'person' },
+  {
+    route: 'POST /api/me/password',
+    call: () => ({ method: 'POST', path: '/api/me/password', body: { current: fixturePassword, password: fixturePassword } }),
+    expect: signedInOnly(200),
+    ends: 'person',
+  },
   { route: 'GET /api/me/sessions', call: () => ({ method: 'GET', path: '/api/me/sessions' }), expect: signedInOnly(200) },
   { route: 'DELETE /api/me/sessions', call: () => ({ method: 'DELETE', path: '/api/me/sessions' }), expect: signedInOnly(200), ends: 'person' },
   {
@@ -82,11 +106,27 @@ export const roleMatrix: Row[] = [
     call: async (f, who, me) => ({ method: 'DELETE', path: `/api/me/sessions/${(await spareSession(me ?? (who === 'anonymous' ? f.knitter : f[who]))).id}` }),
     expect: signedInOnly(204),
   },
-  { route: 'POST /api/auth/password-reset', call: () => ({ method: 'POST', path: '/api/auth/password-reset', body: { email: uniqueEmail('matrix') } }), expect: same(202) },
-  { route: 'POST /api/auth/password-reset/confirm', call: () => ({ method: 'POST', path: '/api/auth/password-reset/confirm', body: { token: 'x'.repeat(43), password: 'matrix-password' } }), expect: same(400) },
+  {
+    route: 'POST /api/auth/password-reset',
+    call: () => ({ method: 'POST', path: '/api/auth/password-reset', body: { email: uniqueEmail('matrix') } }),
+    expect: same(202),
+  },
+  {
+    route: 'POST /api/auth/password-reset/confirm',
+    call: () => ({ method: 'POST', path: '/api/auth/password-reset/confirm', body: { token: 'x'.repeat(43), password: 'matrix-password' } }),
+    expect: same(400),
+  },
   { route: 'GET /api/studios/[studioId]/members', call: f => ({ method: 'GET', path: `/api/studios/${f.studio.id}/members` }), expect: studioMember(200) },
-  { route: 'GET /api/studios/[studioId]/production', call: f => ({ method: 'GET', path: `/api/studios/${f.studio.id}/production` }), expect: studioDesigner(200) },
-  { route: 'POST /api/studios/[studioId]/invitations', call: f => ({ method: 'POST', path: `/api/studios/${f.studio.id}/invitations`, body: { email: uniqueEmail('matrix'), role: 'knitter' } }), expect: studioOwner(201) },
+  {
+    route: 'GET /api/studios/[studioId]/production',
+    call: f => ({ method: 'GET', path: `/api/studios/${f.studio.id}/production` }),
+    expect: studioDesigner(200),
+  },
+  {
+    route: 'POST /api/studios/[studioId]/invitations',
+    call: f => ({ method: 'POST', path: `/api/studios/${f.studio.id}/invitations`, body: { email: uniqueEmail('matrix'), role: 'knitter' } }),
+    expect: studioOwner(201),
+  },
   {
     route: 'PATCH /api/studios/[studioId]/members/[userId]',
     call: async f => ({ method: 'PATCH', path: `/api/studios/${f.studio.id}/members/${(await spareMember(f)).id}`, body: { role: 'designer' } }),
@@ -98,14 +138,38 @@ export const roleMatrix: Row[] = [
     expect: studioOwner(204),
   },
   { route: 'GET /api/motifs', call: f => ({ method: 'GET', path: `/api/motifs?studioId=${f.studio.id}` }), expect: studioMember(200) },
-  { route: 'POST /api/motifs', call: f => ({ method: 'POST', path: '/api/motifs', body: { studioId: f.studio.id, name: 'Matrix motif', rows: ['x.', '.x'] } }), expect: studioDesigner(201) },
+  {
+    route: 'POST /api/motifs',
+    call: f => ({ method: 'POST', path: '/api/motifs', body: { studioId: f.studio.id, name: 'Matrix motif', rows: ['x.', '.x'] } }),
+    expect: studioDesigner(201),
+  },
   // A published motif each time: knitters see it, so their edits are refused (403), not hidden (404).
   { route: 'GET /api/motifs/[id]', call: async f => ({ method: 'GET', path: `/api/motifs/${(await publishedMotif(f)).id}` }), expect: studioMember(200) },
-  { route: 'PATCH /api/motifs/[id]', call: async f => ({ method: 'PATCH', path: `/api/motifs/${(await publishedMotif(f)).id}`, body: { name: 'Renamed', version: 0 } }), expect: studioDesigner(200) },
-  { route: 'DELETE /api/motifs/[id]', call: async f => ({ method: 'DELETE', path: `/api/motifs/${(await publishedMotif(f)).id}` }), expect: studioDesigner(204) },
-  { route: 'POST /api/motifs/[id]/duplicate', call: async f => ({ method: 'POST', path: `/api/motifs/${(await publishedMotif(f)).id}/duplicate` }), expect: studioDesigner(201) },
-  { route: 'GET /api/motifs/[id]/export', call: async f => ({ method: 'GET', path: `/api/motifs/${(await publishedMotif(f)).id}/export?format=csv` }), expect: studioMember(200) },
-  { route: 'GET /api/motifs/[id]/picture', call: async f => ({ method: 'GET', path: `/api/motifs/${await publishedPictureMotif(f)}/picture` }), expect: studioMember(200) },
+  {
+    route: 'PATCH /api/motifs/[id]',
+    call: async f => ({ method: 'PATCH', path: `/api/motifs/${(await publishedMotif(f)).id}`, body: { name: 'Renamed', version: 0 } }),
+    expect: studioDesigner(200),
+  },
+  {
+    route: 'DELETE /api/motifs/[id]',
+    call: async f => ({ method: 'DELETE', path: `/api/motifs/${(await publishedMotif(f)).id}` }),
+    expect: studioDesigner(204),
+  },
+  {
+    route: 'POST /api/motifs/[id]/duplicate',
+    call: async f => ({ method: 'POST', path: `/api/motifs/${(await publishedMotif(f)).id}/duplicate` }),
+    expect: studioDesigner(201),
+  },
+  {
+    route: 'GET /api/motifs/[id]/export',
+    call: async f => ({ method: 'GET', path: `/api/motifs/${(await publishedMotif(f)).id}/export?format=csv` }),
+    expect: studioMember(200),
+  },
+  {
+    route: 'GET /api/motifs/[id]/picture',
+    call: async f => ({ method: 'GET', path: `/api/motifs/${await publishedPictureMotif(f)}/picture` }),
+    expect: studioMember(200),
+  },
   {
     route: 'POST /api/motifs/import',
     call: f => ({ method: 'POST', path: '/api/motifs/import', body: { studioId: f.studio.id, format: 'csv', content: '0,1\n1,0\n' } }),
@@ -113,36 +177,80 @@ export const roleMatrix: Row[] = [
   },
   {
     route: 'POST /api/motifs/from-picture',
-    call: f => ({ method: 'POST', path: '/api/motifs/from-picture', body: pictureForm({ studioId: f.studio.id, name: 'Matrix picture', width: 2, height: 2 }, chartPicture(['x.', '.x'])) }),
+    call: f => ({
+      method: 'POST',
+      path: '/api/motifs/from-picture',
+      body: pictureForm({ studioId: f.studio.id, name: 'Matrix picture', width: 2, height: 2 }, chartPicture(['x.', '.x'])),
+    }),
     expect: studioDesigner(201),
   },
   {
     route: 'POST /api/motifs/picture-preview',
-    call: f => ({ method: 'POST', path: '/api/motifs/picture-preview', body: pictureForm({ studioId: f.studio.id, width: 2, height: 2 }, chartPicture(['x.', '.x'])) }),
+    call: f => ({
+      method: 'POST',
+      path: '/api/motifs/picture-preview',
+      body: pictureForm({ studioId: f.studio.id, width: 2, height: 2 }, chartPicture(['x.', '.x'])),
+    }),
     expect: studioDesigner(200),
   },
   { route: 'GET /api/yarns', call: f => ({ method: 'GET', path: `/api/yarns?studioId=${f.studio.id}` }), expect: studioMember(200) },
   { route: 'POST /api/yarns', call: f => ({ method: 'POST', path: '/api/yarns', body: planner.yarnBody(f) }), expect: studioDesigner(201) },
-  { route: 'PATCH /api/yarns/[id]', call: async f => ({ method: 'PATCH', path: `/api/yarns/${(await planner.yarn(f)).id}`, body: { gramsOnHand: 250 } }), expect: studioDesigner(200) },
+  {
+    route: 'PATCH /api/yarns/[id]',
+    call: async f => ({ method: 'PATCH', path: `/api/yarns/${(await planner.yarn(f)).id}`, body: { gramsOnHand: 250 } }),
+    expect: studioDesigner(200),
+  },
   // Machines and yarns are the studio's stock: only the owner deletes them.
   { route: 'DELETE /api/yarns/[id]', call: async f => ({ method: 'DELETE', path: `/api/yarns/${(await planner.yarn(f)).id}` }), expect: studioOwner(204) },
   { route: 'GET /api/machines', call: f => ({ method: 'GET', path: `/api/machines?studioId=${f.studio.id}` }), expect: studioMember(200) },
   { route: 'POST /api/machines', call: f => ({ method: 'POST', path: '/api/machines', body: planner.machineBody(f) }), expect: studioDesigner(201) },
-  { route: 'PATCH /api/machines/[id]', call: async f => ({ method: 'PATCH', path: `/api/machines/${(await planner.machine(f)).id}`, body: { notes: 'Matrix' } }), expect: studioDesigner(200) },
-  { route: 'DELETE /api/machines/[id]', call: async f => ({ method: 'DELETE', path: `/api/machines/${(await planner.machine(f)).id}` }), expect: studioOwner(204) },
+  {
+    route: 'PATCH /api/machines/[id]',
+    call: async f => ({ method: 'PATCH', path: `/api/machines/${(await planner.machine(f)).id}`, body: { notes: 'Matrix' } }),
+    expect: studioDesigner(200),
+  },
+  {
+    route: 'DELETE /api/machines/[id]',
+    call: async f => ({ method: 'DELETE', path: `/api/machines/${(await planner.machine(f)).id}` }),
+    expect: studioOwner(204),
+  },
   { route: 'GET /api/swatches', call: f => ({ method: 'GET', path: `/api/swatches?studioId=${f.studio.id}` }), expect: studioMember(200) },
   { route: 'POST /api/swatches', call: f => ({ method: 'POST', path: '/api/swatches', body: planner.swatchBody(f) }), expect: studioDesigner(201) },
   { route: 'GET /api/swatches/[id]', call: async f => ({ method: 'GET', path: `/api/swatches/${(await planner.swatch(f)).id}` }), expect: studioMember(200) },
-  { route: 'PATCH /api/swatches/[id]', call: async f => ({ method: 'PATCH', path: `/api/swatches/${(await planner.swatch(f)).id}`, body: { washed: true } }), expect: studioDesigner(200) },
-  { route: 'DELETE /api/swatches/[id]', call: async f => ({ method: 'DELETE', path: `/api/swatches/${(await planner.swatch(f)).id}` }), expect: studioDesigner(204) },
+  {
+    route: 'PATCH /api/swatches/[id]',
+    call: async f => ({ method: 'PATCH', path: `/api/swatches/${(await planner.swatch(f)).id}`, body: { washed: true } }),
+    expect: studioDesigner(200),
+  },
+  {
+    route: 'DELETE /api/swatches/[id]',
+    call: async f => ({ method: 'DELETE', path: `/api/swatches/${(await planner.swatch(f)).id}` }),
+    expect: studioDesigner(204),
+  },
   { route: 'GET /api/plans', call: f => ({ method: 'GET', path: `/api/plans?studioId=${f.studio.id}` }), expect: studioMember(200) },
   { route: 'POST /api/plans', call: async f => ({ method: 'POST', path: '/api/plans', body: await planner.planBody(f) }), expect: studioDesigner(201) },
   // A published plan each time: knitters see it, so their edits are refused (403), not hidden (404).
   { route: 'GET /api/plans/[id]', call: async f => ({ method: 'GET', path: `/api/plans/${await planner.publishedPlan(f)}` }), expect: studioMember(200) },
-  { route: 'PATCH /api/plans/[id]', call: async f => ({ method: 'PATCH', path: `/api/plans/${await planner.publishedPlan(f)}`, body: { name: 'Renamed plan', version: 0 } }), expect: studioDesigner(200) },
-  { route: 'DELETE /api/plans/[id]', call: async f => ({ method: 'DELETE', path: `/api/plans/${await planner.publishedPlan(f)}` }), expect: studioDesigner(204) },
-  { route: 'POST /api/plans/[id]/share', call: async f => ({ method: 'POST', path: `/api/plans/${await planner.publishedPlan(f)}/share`, body: { email: uniqueEmail('matrix-share') } }), expect: studioDesigner(201) },
-  { route: 'POST /api/plans/[id]/projects', call: async f => ({ method: 'POST', path: `/api/plans/${await planner.publishedPlan(f)}/projects`, body: {} }), expect: studioMember(201) },
+  {
+    route: 'PATCH /api/plans/[id]',
+    call: async f => ({ method: 'PATCH', path: `/api/plans/${await planner.publishedPlan(f)}`, body: { name: 'Renamed plan', version: 0 } }),
+    expect: studioDesigner(200),
+  },
+  {
+    route: 'DELETE /api/plans/[id]',
+    call: async f => ({ method: 'DELETE', path: `/api/plans/${await planner.publishedPlan(f)}` }),
+    expect: studioDesigner(204),
+  },
+  {
+    route: 'POST /api/plans/[id]/share',
+    call: async f => ({ method: 'POST', path: `/api/plans/${await planner.publishedPlan(f)}/share`, body: { email: uniqueEmail('matrix-share') } }),
+    expect: studioDesigner(201),
+  },
+  {
+    route: 'POST /api/plans/[id]/projects',
+    call: async f => ({ method: 'POST', path: `/api/plans/${await planner.publishedPlan(f)}/projects`, body: {} }),
+    expect: studioMember(201),
+  },
   { route: 'GET /api/invitations/[token]', call: async f => ({ method: 'GET', path: `/api/invitations/${await freshInvitation(f)}` }), expect: same(200) },
   {
     // The link is the secret; an address with no account gets one on accepting.
@@ -178,8 +286,14 @@ export const roleMatrix: Row[] = [
     // Anyone signed in may sync; a step on a piece that is not theirs comes back in `rejected`.
     route: 'POST /api/sync',
     call: async f => ({
-      method: 'POST', path: '/api/sync',
-      body: { deviceId: 'matrix-device', events: [{ id: randomUUID(), pieceId: (await knittersProject(f)).pieces[0]!.id, kind: 'advance', from: 0, to: 1, version: 0, at: new Date().toISOString() }] },
+      method: 'POST',
+      path: '/api/sync',
+      body: {
+        deviceId: 'matrix-device',
+        events: [
+          { id: randomUUID(), pieceId: (await knittersProject(f)).pieces[0]!.id, kind: 'advance', from: 0, to: 1, version: 0, at: new Date().toISOString() },
+        ],
+      },
     }),
     expect: signedInOnly(200),
   },
@@ -194,7 +308,10 @@ let pictureMotifId: number | undefined
 async function publishedPictureMotif(f: Fixture) {
   if (pictureMotifId) return pictureMotifId
   const designer = await signedIn(f.designer.email, fixturePassword)
-  const made = await designer.post('/api/motifs/from-picture', pictureForm({ studioId: f.studio.id, name: 'Matrix picture', width: 2, height: 2 }, chartPicture(['x.', '.x'])))
+  const made = await designer.post(
+    '/api/motifs/from-picture',
+    pictureForm({ studioId: f.studio.id, name: 'Matrix picture', width: 2, height: 2 }, chartPicture(['x.', '.x'])),
+  )
   await designer.patch(`/api/motifs/${made.body.id}`, { published: true })
   pictureMotifId = made.body.id as number
   return pictureMotifId
@@ -220,14 +337,42 @@ const planner = {
   machineBody: (f: Fixture) => ({ studioId: f.studio.id, name: 'Matrix machine', needlePitchMm: 4.5, needles: 200, patterningWidth: 24 }),
   machine: (f: Fixture) => Machine.create({ studioId: f.studio.id, name: 'Matrix machine', needlePitchMm: 4.5, needles: 200, patterningWidth: 24 }),
   swatchBody: (f: Fixture) => ({ studioId: f.studio.id, stitches: 30, rows: 40, width: 10, height: 10, unit: 'cm', grams: 6 }),
-  swatch: (f: Fixture) => Swatch.create({ studioId: f.studio.id, machineId: null, mainYarnId: null, contrastYarnId: null, stitches: 30, rows: 40, width: 10, height: 10, unit: 'cm', grams: 6 }),
+  swatch: (f: Fixture) =>
+    Swatch.create({
+      studioId: f.studio.id,
+      machineId: null,
+      mainYarnId: null,
+      contrastYarnId: null,
+      stitches: 30,
+      rows: 40,
+      width: 10,
+      height: 10,
+      unit: 'cm',
+      grams: 6,
+    }),
   async planBody(f: Fixture) {
     stock ??= await makeStock(f.studio.id)
     const [machine, swatch] = [await planner.machine(f), await planner.swatch(f)]
     return {
-      studioId: f.studio.id, name: 'Matrix plan', machineId: machine.id, swatchId: swatch.id,
-      yarns: [{ slot: 'A', yarnId: stock.main.id }, { slot: 'B', yarnId: stock.contrast.id }],
-      pieces: [{ name: 'Back', targetWidth: 20, targetLength: 10, sections: [{ kind: 'plain', rows: 4, yarn: 'A' }, { kind: 'motif', motifId: stock.motif.id, placement: 'centred', chartRows: 8, main: 'A', contrast: 'B' }] }],
+      studioId: f.studio.id,
+      name: 'Matrix plan',
+      machineId: machine.id,
+      swatchId: swatch.id,
+      yarns: [
+        { slot: 'A', yarnId: stock.main.id },
+        { slot: 'B', yarnId: stock.contrast.id },
+      ],
+      pieces: [
+        {
+          name: 'Back',
+          targetWidth: 20,
+          targetLength: 10,
+          sections: [
+            { kind: 'plain', rows: 4, yarn: 'A' },
+            { kind: 'motif', motifId: stock.motif.id, placement: 'centred', chartRows: 8, main: 'A', contrast: 'B' },
+          ],
+        },
+      ],
     }
   },
   async publishedPlan(f: Fixture) {

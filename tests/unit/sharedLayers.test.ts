@@ -46,7 +46,20 @@ describe('shared/ layers', () => {
   })
 
   it('is imported by #shared/… paths, and the public entry shared/knitting only from outside the project', () => {
-    const folders = ['pages', 'components', 'composables', 'stores', 'plugins', 'layouts', 'middleware', 'server', 'offline', 'service-worker', 'shared', 'tests']
+    const folders = [
+      'pages',
+      'components',
+      'composables',
+      'stores',
+      'plugins',
+      'layouts',
+      'middleware',
+      'server',
+      'offline',
+      'service-worker',
+      'shared',
+      'tests',
+    ]
     const offenders: string[] = []
     for (const file of folders.flatMap(f => sourceFiles(join(root, f)))) {
       for (const { spec, file: target } of importsOf(file, true)) {

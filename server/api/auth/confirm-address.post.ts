@@ -13,7 +13,8 @@ export default defineEventHandler(async (event) => {
       lock: transaction.LOCK.UPDATE,
       transaction,
     })
-    if (!confirmation) throw createError({ statusCode: 400, message: 'token: this link has expired or was already used; sign in and ask for a new one on your account page' })
+    if (!confirmation)
+      throw createError({ statusCode: 400, message: 'token: this link has expired or was already used; sign in and ask for a new one on your account page' })
     const user = (await User.findByPk(confirmation.userId, { transaction, lock: transaction.LOCK.UPDATE }))!
     await user.update({ emailConfirmedAt: user.emailConfirmedAt ?? new Date() }, { transaction })
     await EmailConfirmation.update({ usedAt: new Date() }, { where: { userId: user.id, usedAt: null }, transaction })

@@ -9,7 +9,11 @@ export default defineEventHandler(async (event) => {
   await claimSignInAttempt(event, email)
   const user = (await User.findByPk(id))!
   if (!(await verifyPassword(user.passwordHash, body.current))) {
-    throw createError({ statusCode: 400, message: 'current: this is not your current password', data: { issues: [{ path: ['current'], message: 'is not your current password' }] } })
+    throw createError({
+      statusCode: 400,
+      message: 'current: this is not your current password',
+      data: { issues: [{ path: ['current'], message: 'is not your current password' }] },
+    })
   }
   await clearSignInFailures(event, email)
   await user.update({ passwordHash: await hashPassword(body.password) })

@@ -17,9 +17,47 @@ import { UserSession } from './userSession'
 import { EmailConfirmation } from './emailConfirmation'
 import { QueuedMail } from './queuedMail'
 
-export { User, Studio, Membership, Invitation, PasswordReset, SignInFailure, Machine, Yarn, Motif, Project, Piece, RowEvent, Swatch, Plan, PlanPiece, UserSession, EmailConfirmation, QueuedMail }
+export {
+  User,
+  Studio,
+  Membership,
+  Invitation,
+  PasswordReset,
+  SignInFailure,
+  Machine,
+  Yarn,
+  Motif,
+  Project,
+  Piece,
+  RowEvent,
+  Swatch,
+  Plan,
+  PlanPiece,
+  UserSession,
+  EmailConfirmation,
+  QueuedMail,
+}
 
-const models = [User, Studio, Membership, Invitation, PasswordReset, SignInFailure, Machine, Yarn, Motif, Project, Piece, RowEvent, Swatch, Plan, PlanPiece, UserSession, EmailConfirmation, QueuedMail]
+const models = [
+  User,
+  Studio,
+  Membership,
+  Invitation,
+  PasswordReset,
+  SignInFailure,
+  Machine,
+  Yarn,
+  Motif,
+  Project,
+  Piece,
+  RowEvent,
+  Swatch,
+  Plan,
+  PlanPiece,
+  UserSession,
+  EmailConfirmation,
+  QueuedMail,
+]
 
 /** Binds every model to one Sequelize instance (once per instance). */
 export function initModels(sequelize: Sequelize) {

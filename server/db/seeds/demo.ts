@@ -17,8 +17,24 @@ export const demoAccounts = [
 export const demoStudioName = 'Saltmarsh Knitwear'
 
 const machines = [
-  { name: 'Workroom standard bed', needlePitchMm: 4.5, needles: 200, patterningWidth: 24, technique: 'together' as const, passesPerColour: 2, notes: 'Standard gauge; patterning 24 stitches wide.' },
-  { name: 'Window mid-gauge bed', needlePitchMm: 6.5, needles: 150, patterningWidth: 12, technique: 'colour-by-colour' as const, passesPerColour: 2, notes: 'Mid gauge; the colour changer sits on the left.' },
+  {
+    name: 'Workroom standard bed',
+    needlePitchMm: 4.5,
+    needles: 200,
+    patterningWidth: 24,
+    technique: 'together' as const,
+    passesPerColour: 2,
+    notes: 'Standard gauge; patterning 24 stitches wide.',
+  },
+  {
+    name: 'Window mid-gauge bed',
+    needlePitchMm: 6.5,
+    needles: 150,
+    patterningWidth: 12,
+    technique: 'colour-by-colour' as const,
+    passesPerColour: 2,
+    notes: 'Mid gauge; the colour changer sits on the left.',
+  },
 ]
 
 const yarns = [
@@ -62,7 +78,10 @@ export async function seedDemo(sequelize: Sequelize): Promise<'created' | 'prese
     const motifRows: Record<string, Motif> = {}
     for (const m of demoMotifs) {
       const designer = people.designer!.id
-      motifRows[m.name] = await Motif.create({ studioId: studio.id, name: m.name, published: m.published, createdBy: designer, updatedBy: designer, ...motifRecord(m.rows) }, { transaction })
+      motifRows[m.name] = await Motif.create(
+        { studioId: studio.id, name: m.name, published: m.published, createdBy: designer, updatedBy: designer, ...motifRecord(m.rows) },
+        { transaction },
+      )
     }
     const stock = { studio, knitter: people.knitter!, machines: machineRows, yarns: yarnRows, motifs: motifRows }
     await seedProjects(stock, transaction)
@@ -74,15 +93,33 @@ export async function seedDemo(sequelize: Sequelize): Promise<'created' | 'prese
 interface DemoStock { studio: Studio; knitter: User; machines: Machine[]; yarns: Record<string, Yarn>; motifs: Record<string, Motif> }
 
 /** A timeline of the demo motif `motif` in the two named yarns (main first). */
-function demoTimeline(stock: DemoStock, motif: string, yarnNames: [string, string], shape: { technique: 'together' | 'colour-by-colour'; needles: number; chartRows: number; before: number; after: number; labels: { before: string; after: string } }) {
+function demoTimeline(
+  stock: DemoStock,
+  motif: string,
+  yarnNames: [string, string],
+  shape: {
+    technique: 'together' | 'colour-by-colour'
+    needles: number
+    chartRows: number
+    before: number
+    after: number
+    labels: { before: string; after: string }
+  },
+) {
   const chosen = yarnNames.map(n => stock.yarns[n]!)
   const slots = slotYarns(chosen)
   return {
     yarns: slots.map((y, i) => ({ ...y, yarnId: chosen[i]!.id })),
     timeline: borderedMotifTimeline({
-      technique: shape.technique, passesPerColour: 2, needles: shape.needles, yarns: slots,
+      technique: shape.technique,
+      passesPerColour: 2,
+      needles: shape.needles,
+      yarns: slots,
       motif: { name: motif, chart: demoMotifs.find(m => m.name === motif)!.rows },
-      chartRows: shape.chartRows, borderBefore: shape.before, borderAfter: shape.after, labels: shape.labels,
+      chartRows: shape.chartRows,
+      borderBefore: shape.before,
+      borderAfter: shape.after,
+      labels: shape.labels,
     }),
   }
 }

@@ -77,13 +77,20 @@ describe('centring the motif on the needles in work (declared: a repeat centre o
   })
 
   it('a symmetric motif knits symmetric about the centre when the counts share parity (property)', () => {
-    fc.assert(fc.property(fc.integer({ min: 1, max: 16 }), fc.integer({ min: 1, max: 120 }), fc.array(fc.boolean(), { minLength: 16, maxLength: 16 }), (w, n0, bits) => {
-      const n = (n0 % 2) === (w % 2) ? n0 : n0 + 1
-      const row = Array.from({ length: w }, (_, c) => bits[Math.min(c, w - 1 - c)] ? 'x' : '.').join('')
-      const chart = chartFromRows([row])
-      const knitted = knittedRow(chart, 0, n, centredOffset(n, w))
-      expect(knitted).toEqual([...knitted].reverse())
-    }))
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 1, max: 16 }),
+        fc.integer({ min: 1, max: 120 }),
+        fc.array(fc.boolean(), { minLength: 16, maxLength: 16 }),
+        (w, n0, bits) => {
+          const n = n0 % 2 === w % 2 ? n0 : n0 + 1
+          const row = Array.from({ length: w }, (_, c) => (bits[Math.min(c, w - 1 - c)] ? 'x' : '.')).join('')
+          const chart = chartFromRows([row])
+          const knitted = knittedRow(chart, 0, n, centredOffset(n, w))
+          expect(knitted).toEqual([...knitted].reverse())
+        },
+      ),
+    )
   })
 
   it('whole repeats and partial stitches add up to the needles (property)', () => {

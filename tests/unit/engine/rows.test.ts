@@ -40,10 +40,18 @@ describe('compilePlan', () => {
   })
 
   it('colour-by-colour with passesPerColour 1 and 3', () => {
-    const one = compilePlan({ technique: 'colour-by-colour', passesPerColour: 1, sections: [{ kind: 'motif', chart: chart3, chartRows: 3, main: 'M', contrast: 'C' }] })
+    const one = compilePlan({
+      technique: 'colour-by-colour',
+      passesPerColour: 1,
+      sections: [{ kind: 'motif', chart: chart3, chartRows: 3, main: 'M', contrast: 'C' }],
+    })
     expect(one.rows.map(r => r.yarns[0])).toEqual(['M', 'C', 'M', 'C', 'M', 'C'])
     expect(one.changes).toEqual([1, 2, 3, 4, 5])
-    const three = compilePlan({ technique: 'colour-by-colour', passesPerColour: 3, sections: [{ kind: 'motif', chart: chart3, chartRows: 1, main: 'M', contrast: 'C' }] })
+    const three = compilePlan({
+      technique: 'colour-by-colour',
+      passesPerColour: 3,
+      sections: [{ kind: 'motif', chart: chart3, chartRows: 1, main: 'M', contrast: 'C' }],
+    })
     expect(three.rows.map(r => r.yarns[0]).join('')).toBe('MMMCCC')
   })
 
@@ -81,28 +89,38 @@ describe('compilePlan', () => {
   })
 
   it('row count, chart row cycle and changes are consistent (property)', () => {
-    fc.assert(fc.property(
-      fc.constantFrom('together', 'colour-by-colour' as const),
-      fc.integer({ min: 1, max: 4 }),
-      fc.array(fc.oneof(
-        fc.record({ kind: fc.constant('plain' as const), rows: fc.integer({ min: 1, max: 6 }), yarn: fc.constantFrom('A', 'B', 'C') }),
-        fc.record({ kind: fc.constant('motif' as const), chartRows: fc.integer({ min: 1, max: 8 }), pair: fc.constantFrom(['A', 'B'], ['B', 'A'], ['A', 'C']) }),
-      ), { maxLength: 5 }),
-      (technique, passes, raw) => {
-        const plan: PlanInput = {
-          technique, passesPerColour: passes,
-          sections: raw.map(s => s.kind === 'plain' ? s : { kind: 'motif', chart: chart3, chartRows: s.chartRows, main: s.pair[0]!, contrast: s.pair[1]! }),
-        }
-        const out = compilePlan(plan)
-        const per = technique === 'together' ? 1 : 2 * passes
-        const want = raw.reduce((a, s) => a + (s.kind === 'plain' ? s.rows : s.chartRows * per), 0)
-        expect(out.rows).toHaveLength(want)
-        out.rows.forEach((r, i) => {
-          if (r.chartRow !== null) expect(r.chartRow).toBe(Math.floor(r.rowInSection / per) % 3)
-          if (i > 0) expect(out.changes.includes(i)).toBe(r.yarns.join('|') !== out.rows[i - 1]!.yarns.join('|'))
-        })
-      },
-    ))
+    fc.assert(
+      fc.property(
+        fc.constantFrom('together', 'colour-by-colour' as const),
+        fc.integer({ min: 1, max: 4 }),
+        fc.array(
+          fc.oneof(
+            fc.record({ kind: fc.constant('plain' as const), rows: fc.integer({ min: 1, max: 6 }), yarn: fc.constantFrom('A', 'B', 'C') }),
+            fc.record({
+              kind: fc.constant('motif' as const),
+              chartRows: fc.integer({ min: 1, max: 8 }),
+              pair: fc.constantFrom(['A', 'B'], ['B', 'A'], ['A', 'C']),
+            }),
+          ),
+          { maxLength: 5 },
+        ),
+        (technique, passes, raw) => {
+          const plan: PlanInput = {
+            technique,
+            passesPerColour: passes,
+            sections: raw.map(s => (s.kind === 'plain' ? s : { kind: 'motif', chart: chart3, chartRows: s.chartRows, main: s.pair[0]!, contrast: s.pair[1]! })),
+          }
+          const out = compilePlan(plan)
+          const per = technique === 'together' ? 1 : 2 * passes
+          const want = raw.reduce((a, s) => a + (s.kind === 'plain' ? s.rows : s.chartRows * per), 0)
+          expect(out.rows).toHaveLength(want)
+          out.rows.forEach((r, i) => {
+            if (r.chartRow !== null) expect(r.chartRow).toBe(Math.floor(r.rowInSection / per) % 3)
+            if (i > 0) expect(out.changes.includes(i)).toBe(r.yarns.join('|') !== out.rows[i - 1]!.yarns.join('|'))
+          })
+        },
+      ),
+    )
   })
 
   it.each([
@@ -112,10 +130,31 @@ describe('compilePlan', () => {
     [{ technique: 'together', sections: [{ kind: 'rib', rows: 3 }] }, 'plan.sections[0].kind: expected "plain" or "motif", got "rib"'],
     [{ technique: 'together', sections: [{ kind: 'plain', rows: 0, yarn: 'A' }] }, 'plan.sections[0].rows: must be at least 1, got 0'],
     [{ technique: 'together', sections: [{ kind: 'plain', rows: 2, yarn: '' }] }, 'plan.sections[0].yarn: expected a yarn name, got ""'],
-    [{ technique: 'together', sections: [{ kind: 'plain', rows: 2, yarn: 'A' }, { kind: 'motif', chart: chart3, chartRows: 2.5, main: 'A', contrast: 'B' }] }, 'plan.sections[1].chartRows: expected a whole number, got 2.5'],
-    [{ technique: 'together', sections: [{ kind: 'motif', chart: { width: 2, height: 1, cells: new Uint8Array(1) }, chartRows: 2, main: 'A', contrast: 'B' }] }, 'plan.sections[0].chart: 1 cells, expected 2 (2 × 1)'],
-    [{ technique: 'together', sections: [{ kind: 'motif', chart: chart3, chartRows: 2, main: 'A', contrast: 'A' }] }, 'plan.sections[0]: main and contrast are the same yarn "A"'],
-    [{ technique: 'together', sections: [{ kind: 'motif', chart: chart3, chartRows: 2, main: 'A' }] }, 'plan.sections[0].contrast: expected a yarn name, got undefined'],
+    [
+      {
+        technique: 'together',
+        sections: [
+          { kind: 'plain', rows: 2, yarn: 'A' },
+          { kind: 'motif', chart: chart3, chartRows: 2.5, main: 'A', contrast: 'B' },
+        ],
+      },
+      'plan.sections[1].chartRows: expected a whole number, got 2.5',
+    ],
+    [
+      {
+        technique: 'together',
+        sections: [{ kind: 'motif', chart: { width: 2, height: 1, cells: new Uint8Array(1) }, chartRows: 2, main: 'A', contrast: 'B' }],
+      },
+      'plan.sections[0].chart: 1 cells, expected 2 (2 × 1)',
+    ],
+    [
+      { technique: 'together', sections: [{ kind: 'motif', chart: chart3, chartRows: 2, main: 'A', contrast: 'A' }] },
+      'plan.sections[0]: main and contrast are the same yarn "A"',
+    ],
+    [
+      { technique: 'together', sections: [{ kind: 'motif', chart: chart3, chartRows: 2, main: 'A' }] },
+      'plan.sections[0].contrast: expected a yarn name, got undefined',
+    ],
   ])('rejects %o', (plan, message) => {
     const e = inputError(() => compilePlan(plan as unknown as PlanInput))
     expect(e.message).toBe(message)

@@ -240,7 +240,18 @@ describe('shapePiece — the simplest shapes', () => {
 
   it('a V neck of an odd count casts off one stitch at the centre (common practice)', () => {
     // 147 cast on, 141 across the shoulders, 2 × 42 for the shoulders: 57 left for the neck
-    const piece = shapePiece({ kind: 'body', hemWidth: 49, width: 49, lengthToUnderarm: 30, armhole: { castOff: 1, decrease: 0, depth: 18 }, shoulder: { width: 14, drop: 0, method: 'cast-off' }, neck: { width: 15, depth: 15, shape: 'v' } }, g30x40)
+    const piece = shapePiece(
+      {
+        kind: 'body',
+        hemWidth: 49,
+        width: 49,
+        lengthToUnderarm: 30,
+        armhole: { castOff: 1, decrease: 0, depth: 18 },
+        shoulder: { width: 14, drop: 0, method: 'cast-off' },
+        neck: { width: 15, depth: 15, shape: 'v' },
+      },
+      g30x40,
+    )
     expect(piece.castOn).toBe(147)
     expect(piece.counts.neckCentre).toBe(1)
     expect(piece.counts.neck % 2).toBe(1)
@@ -282,19 +293,26 @@ describe('shapePiece — the simplest shapes', () => {
 // Properties over random valid specs and gauges.
 
 const other = (s: 'left' | 'right') => (s === 'left' ? 'right' : 'left')
-const gaugeArb = fc.record({ stitchesPer10cm: fc.integer({ min: 150, max: 450 }).map(n => n / 10), rowsPer10cm: fc.integer({ min: 200, max: 600 }).map(n => n / 10) })
+const gaugeArb = fc.record({
+  stitchesPer10cm: fc.integer({ min: 150, max: 450 }).map(n => n / 10),
+  rowsPer10cm: fc.integer({ min: 200, max: 600 }).map(n => n / 10),
+})
 const cm = (min: number, max: number) => fc.integer({ min: min * 4, max: max * 4 }).map(n => n / 4)
 
-const bodyArb: fc.Arbitrary<ShapeSpec> = fc.record({
-  kind: fc.constant('body' as const),
-  carriageStart: fc.option(fc.constantFrom('left' as const, 'right' as const), { nil: undefined }),
-  hemWidth: cm(30, 65),
-  widen: fc.option(cm(-4, 8), { nil: undefined }),
-  lengthToUnderarm: cm(15, 50),
-  armhole: fc.option(fc.record({ castOff: cm(0, 4), decrease: cm(0, 3), depth: cm(14, 26) }), { nil: undefined }),
-  shoulder: fc.option(fc.record({ width: cm(6, 15), drop: cm(0, 3), method: fc.constantFrom('cast-off' as const, 'hold' as const) }), { nil: undefined }),
-  neck: fc.option(fc.record({ width: cm(8, 18), depth: cm(2, 12), shape: fc.constantFrom('round' as const, 'v' as const, 'square' as const) }), { nil: undefined }),
-}).map(({ widen, ...s }) => ({ ...s, width: widen === undefined ? undefined : s.hemWidth + widen }))
+const bodyArb: fc.Arbitrary<ShapeSpec> = fc
+  .record({
+    kind: fc.constant('body' as const),
+    carriageStart: fc.option(fc.constantFrom('left' as const, 'right' as const), { nil: undefined }),
+    hemWidth: cm(30, 65),
+    widen: fc.option(cm(-4, 8), { nil: undefined }),
+    lengthToUnderarm: cm(15, 50),
+    armhole: fc.option(fc.record({ castOff: cm(0, 4), decrease: cm(0, 3), depth: cm(14, 26) }), { nil: undefined }),
+    shoulder: fc.option(fc.record({ width: cm(6, 15), drop: cm(0, 3), method: fc.constantFrom('cast-off' as const, 'hold' as const) }), { nil: undefined }),
+    neck: fc.option(fc.record({ width: cm(8, 18), depth: cm(2, 12), shape: fc.constantFrom('round' as const, 'v' as const, 'square' as const) }), {
+      nil: undefined,
+    }),
+  })
+  .map(({ widen, ...s }) => ({ ...s, width: widen === undefined ? undefined : s.hemWidth + widen }))
 
 const sleeveArb: fc.Arbitrary<ShapeSpec> = fc.record({
   kind: fc.constant('sleeve' as const),
@@ -316,7 +334,11 @@ function tryShape(spec: ShapeSpec, gauge: { stitchesPer10cm: number; rowsPer10cm
   }
 }
 
-const G = (gauge: { stitchesPer10cm: number; rowsPer10cm: number }) => ({ ...gauge, stitchWidthMm: 100 / gauge.stitchesPer10cm, rowHeightMm: 100 / gauge.rowsPer10cm })
+const G = (gauge: { stitchesPer10cm: number; rowsPer10cm: number }) => ({
+  ...gauge,
+  stitchWidthMm: 100 / gauge.stitchesPer10cm,
+  rowHeightMm: 100 / gauge.rowsPer10cm,
+})
 
 /** Every rule the outside holds the piece to, checked from the rows alone. */
 function checkPiece(spec: ShapeSpec, gauge: { stitchesPer10cm: number; rowsPer10cm: number }, piece: ShapedPiece): void {
@@ -330,7 +352,18 @@ function checkPiece(spec: ShapeSpec, gauge: { stitchesPer10cm: number; rowsPer10
   const rows = piece.rows
   same(piece.castOn, stitchesForWidth(spec.hemWidth, g), 'castOn = stitchesForWidth(hemWidth)')
   rows.forEach((r, i) => {
-    for (const n of [r.stitches, r.held, r.heldInPart, r.castOff.left, r.castOff.right, r.castOff.centre, r.decrease.left, r.decrease.right, r.increase.left, r.increase.right]) {
+    for (const n of [
+      r.stitches,
+      r.held,
+      r.heldInPart,
+      r.castOff.left,
+      r.castOff.right,
+      r.castOff.centre,
+      r.decrease.left,
+      r.decrease.right,
+      r.increase.left,
+      r.increase.right,
+    ]) {
       ok(Number.isInteger(n) && n >= 0, `row ${i}: a negative or broken count`)
     }
     // Carriage: row 0 from carriageStart, then alternating every row; edge cast-offs at its side.
@@ -346,7 +379,8 @@ function checkPiece(spec: ShapeSpec, gauge: { stitchesPer10cm: number; rowsPer10
   const left = rows.filter(r => r.part === 'left')
   same(rows.map(r => r.part), [...whole, ...right, ...left].map(r => r.part), 'parts in order')
   // Conservation within each part; the neck split counts right.
-  const change = (r: ShapedRow) => -r.castOff.left - r.castOff.right - r.castOff.centre - r.decrease.left - r.decrease.right + r.increase.left + r.increase.right
+  const change = (r: ShapedRow) =>
+    -r.castOff.left - r.castOff.right - r.castOff.centre - r.decrease.left - r.decrease.right + r.increase.left + r.increase.right
   let prev = piece.castOn
   for (const r of whole) { same(r.stitches, prev + change(r), `row ${r.row}: conservation`); prev = r.stitches }
   if (right.length > 0) {
@@ -440,7 +474,8 @@ describe('shapePiece — properties over random specs and gauges (common practic
       const right = piece.rows.filter(r => r.part === 'right')
       const left = piece.rows.filter(r => r.part === 'left')
       // While the right part is knitted the bed holds the right part and the waiting left side.
-      const change = (r: ShapedRow) => -r.castOff.left - r.castOff.right - r.castOff.centre - r.decrease.left - r.decrease.right + r.increase.left + r.increase.right
+      const change = (r: ShapedRow) =>
+        -r.castOff.left - r.castOff.right - r.castOff.centre - r.decrease.left - r.decrease.right + r.increase.left + r.increase.right
       const waiting = right.length > 0 ? left[0]!.stitches - change(left[0]!) : 0
       const bad = [
         ...right.filter(r => r.held - r.heldInPart !== waiting),
@@ -468,7 +503,11 @@ describe('shapePiece — bad specs throw a KnittingInputError naming the field',
     ['a neck deeper than the piece', 'neck.depth', { ...frontSpec, neck: { width: 16, depth: 80, shape: 'square' } }],
     ['a shoulder drop deeper than the neck', 'shoulder.drop', { ...frontSpec, shoulder: { width: 16, drop: 10, method: 'cast-off' } }],
     ['more shoulder steps than stitches', 'shoulder.drop', { ...back, shoulder: { width: 1, drop: 3, method: 'cast-off' } }],
-    ['armhole decreases that do not fit the depth', 'armhole.decrease', { ...frontSpec, armhole: { castOff: 2, decrease: 10, depth: 10 }, neck: undefined, shoulder: undefined }],
+    [
+      'armhole decreases that do not fit the depth',
+      'armhole.decrease',
+      { ...frontSpec, armhole: { castOff: 2, decrease: 10, depth: 10 }, neck: undefined, shoulder: undefined },
+    ],
     ['armhole decreases eating the whole piece', 'armhole.decrease', { ...frontSpec, armhole: { castOff: 2, decrease: 30, depth: 20 } }],
     ['an armhole cast-off wider than the piece', 'armhole.castOff', { ...frontSpec, armhole: { castOff: 30, decrease: 0, depth: 20 } }],
     ['side shaping that does not fit the rows', 'width', { kind: 'body', hemWidth: 50, width: 20, lengthToUnderarm: 3 }],

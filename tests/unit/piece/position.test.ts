@@ -90,7 +90,12 @@ describe('pace', () => {
     expect(msPerRow(steps)).toBe(30_000) // 60 s per row pair; the 56-minute break is left out
     expect(msPerRow(steps.slice(0, 3))).toBeNull()
   })
-  it.each([[20_000, 'under a minute'], [12 * 60_000, 'about 12 min'], [100 * 60_000, 'about 1 h 40 min'], [120 * 60_000, 'about 2 h']])('describes %d ms as %s', (ms, text) => {
+  it.each([
+    [20_000, 'under a minute'],
+    [12 * 60_000, 'about 12 min'],
+    [100 * 60_000, 'about 1 h 40 min'],
+    [120 * 60_000, 'about 2 h'],
+  ])('describes %d ms as %s', (ms, text) => {
     expect(describeDuration(ms)).toBe(text)
   })
 })

@@ -46,7 +46,12 @@ describe('compilePieceTimeline', () => {
       catch (e) { return e instanceof KnittingInputError ? e.field : e }
     }
     expect(bad([{ kind: 'plain', label: 'x', rows: 2, yarn: 'C' }])).toBe('sections[0].yarn')
-    expect(bad([{ kind: 'plain', label: 'x', rows: 2, yarn: 'A' }, { kind: 'motif', label: 'm', motifName: 'm', chart: ['x?'], chartRows: 1, main: 'A', contrast: 'B' }])).toBe('sections[1].chart')
+    expect(
+      bad([
+        { kind: 'plain', label: 'x', rows: 2, yarn: 'A' },
+        { kind: 'motif', label: 'm', motifName: 'm', chart: ['x?'], chartRows: 1, main: 'A', contrast: 'B' },
+      ]),
+    ).toBe('sections[1].chart')
     expect(bad([{ kind: 'plain', label: 'x', rows: 0, yarn: 'A' }])).toBe('plan.sections[0].rows')
   })
 })

@@ -67,13 +67,28 @@ describe('piecePicture', () => {
       fc.integer({ min: 0, max: 12 }), fc.constantFrom('increase', 'decrease' as const),
       (widthCm, chartWidth, stitchesEachSide, offset, change) => {
         const chart = [Array.from({ length: chartWidth }, (_, i) => (i % 2 ? '.' : 'x')).join('')]
-        const w = workPlanPiece({
-          name: 'P', copies: 1, targetWidth: widthCm, targetLength: 10, unit: 'cm', ease: 0,
-          sections: [
-            { kind: 'motif', motifId: 1, placement: { offset }, chartRows: 2, main: 'A', contrast: 'B' },
-            { kind: 'shaping', change, stitchesEachSide, rows: 8 },
-          ],
-        }, { gauge: gaugePer10cm({ stitchesPer10cm: 10, rowsPer10cm: 10 }), technique: 'together', passesPerColour: 2, floatLimit: 99, yarns, motifs: new Map([[1, { name: 'm', chart }]]) })
+        const w = workPlanPiece(
+          {
+            name: 'P',
+            copies: 1,
+            targetWidth: widthCm,
+            targetLength: 10,
+            unit: 'cm',
+            ease: 0,
+            sections: [
+              { kind: 'motif', motifId: 1, placement: { offset }, chartRows: 2, main: 'A', contrast: 'B' },
+              { kind: 'shaping', change, stitchesEachSide, rows: 8 },
+            ],
+          },
+          {
+            gauge: gaugePer10cm({ stitchesPer10cm: 10, rowsPer10cm: 10 }),
+            technique: 'together',
+            passesPerColour: 2,
+            floatLimit: 99,
+            yarns,
+            motifs: new Map([[1, { name: 'm', chart }]]),
+          },
+        )
         const p = piecePicture(w.timeline, w.offsets, w.shaping)
         const columns = needleColumns(chartWidth, w.needles, w.offsets[0])
         const left = (p.width - w.needles) / 2

@@ -32,7 +32,13 @@ describe('workPlanPiece', () => {
       { kind: 'plain', label: 'Plain', rows: 10, yarn: 'A', note: 'Waste yarn' },
       { kind: 'motif', label: 'Checks', motifName: 'Checks', chart: ['x.', '.x'], chartRows: 4, main: 'A', contrast: 'B' },
       // Shaping rows are plain in the yarn of the section before (the motif's main colour).
-      { kind: 'plain', label: 'Decreases', rows: 10, yarn: 'A', note: 'Decrease 1 stitch each side every 3rd row ×2, every 4th row ×1 (60 stitches after) — Tension down one' },
+      {
+        kind: 'plain',
+        label: 'Decreases',
+        rows: 10,
+        yarn: 'A',
+        note: 'Decrease 1 stitch each side every 3rd row ×2, every 4th row ×1 (60 stitches after) — Tension down one',
+      },
     ])
     expect(w.timeline.yarns.map(y => [y.slot, y.symbol])).toEqual([['A', '●'], ['B', '▲']])
     expect(w.machineRows).toBe(24)
@@ -40,7 +46,10 @@ describe('workPlanPiece', () => {
   })
 
   it('colour-by-colour keeps the machine\'s passes per colour', () => {
-    const w = workPlanPiece(piece([{ kind: 'motif', motifId: 7, placement: { offset: 1 }, chartRows: 3, main: 'A', contrast: 'B' }]), ctx({ technique: 'colour-by-colour', passesPerColour: 2 }))
+    const w = workPlanPiece(
+      piece([{ kind: 'motif', motifId: 7, placement: { offset: 1 }, chartRows: 3, main: 'A', contrast: 'B' }]),
+      ctx({ technique: 'colour-by-colour', passesPerColour: 2 }),
+    )
     expect(w.timeline.passesPerColour).toBe(2)
     expect(w.machineRows).toBe(12)
     expect(w.sections[0]!.placement).toMatchObject({ offset: 1, chartWidth: 2 })
@@ -62,6 +71,14 @@ describe('workPlanPiece', () => {
 
 describe('planSlotYarns', () => {
   it('gives each slot the symbol of its letter, whatever the order', () => {
-    expect(planSlotYarns([{ slot: 'C', name: 'Red', hex: '#aa0000' }, { slot: 'A', name: 'Oat', hex: '#e8dcc0' }]).map(y => [y.slot, y.symbol])).toEqual([['A', '●'], ['C', '■']])
+    expect(
+      planSlotYarns([
+        { slot: 'C', name: 'Red', hex: '#aa0000' },
+        { slot: 'A', name: 'Oat', hex: '#e8dcc0' },
+      ]).map(y => [y.slot, y.symbol]),
+    ).toEqual([
+      ['A', '●'],
+      ['C', '■'],
+    ])
   })
 })

@@ -50,7 +50,10 @@ describe('isDatabaseUnavailable', () => {
     ['a 404 the route meant', createError({ statusCode: 404, message: 'Project not found' })],
     ['a duplicate key', new UniqueConstraintError({ message: 'Validation error' })],
     ['a validation error', new ValidationError('bad', [])],
-    ['a syntax error in a query', new DatabaseError(Object.assign(new Error('You have an error in your SQL syntax'), { code: 'ER_PARSE_ERROR', sqlState: '42000' }) as never)],
+    [
+      'a syntax error in a query',
+      new DatabaseError(Object.assign(new Error('You have an error in your SQL syntax'), { code: 'ER_PARSE_ERROR', sqlState: '42000' }) as never),
+    ],
     ['a plain bug', new TypeError('Cannot read properties of undefined')],
     ['nothing at all', undefined],
   ])('%s is not the database being down', (_, error) => {
