@@ -18,45 +18,13 @@ import { EmailConfirmation } from './emailConfirmation'
 import { QueuedMail } from './queuedMail'
 
 export {
-  User,
-  Studio,
-  Membership,
-  Invitation,
-  PasswordReset,
-  SignInFailure,
-  Machine,
-  Yarn,
-  Motif,
-  Project,
-  Piece,
-  RowEvent,
-  Swatch,
-  Plan,
-  PlanPiece,
-  UserSession,
-  EmailConfirmation,
-  QueuedMail,
+  User, Studio, Membership, Invitation, PasswordReset, SignInFailure, Machine, Yarn, Motif,
+  Project, Piece, RowEvent, Swatch, Plan, PlanPiece, UserSession, EmailConfirmation, QueuedMail,
 }
 
 const models = [
-  User,
-  Studio,
-  Membership,
-  Invitation,
-  PasswordReset,
-  SignInFailure,
-  Machine,
-  Yarn,
-  Motif,
-  Project,
-  Piece,
-  RowEvent,
-  Swatch,
-  Plan,
-  PlanPiece,
-  UserSession,
-  EmailConfirmation,
-  QueuedMail,
+  User, Studio, Membership, Invitation, PasswordReset, SignInFailure, Machine, Yarn, Motif,
+  Project, Piece, RowEvent, Swatch, Plan, PlanPiece, UserSession, EmailConfirmation, QueuedMail,
 ]
 
 /** Binds every model to one Sequelize instance (once per instance). */
