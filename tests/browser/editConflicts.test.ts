@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import type { Browser, Page } from 'playwright-core'
 import { signedIn } from '../support/api'
-import { addAxe, launchBrowser, screenshot, signIn, watchForErrors } from '../support/browser'
+import { launchBrowser, screenshot, signIn, watchForErrors, seriousAxeViolations } from '../support/browser'
 
 // Two people (or two tabs) editing one motif or plan: the one whose copy is old sees the other
 // copy and chooses; nothing is overwritten silently and nothing of theirs is lost unasked.
@@ -47,16 +47,6 @@ async function waitForState(page: Page, state: string) {
   await page.waitForFunction(s => document.querySelector('[data-test="motif-save-state"]')?.getAttribute('data-state') === s, state, { timeout: 15_000 })
 }
 
-async function axeSerious(page: Page) {
-  await addAxe(page)
-  const result = await page.evaluate(async () =>
-    (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe.run(),
-  )
-  return result.violations
-    .filter(v => v.impact === 'serious' || v.impact === 'critical')
-    .map(v => `${v.id}: ${v.nodes.map(n => n.target.join(' ')).join(', ')}`)
-}
-
 describe('two people editing one motif', () => {
   it('the one with the old copy sees both charts and chooses: Combine, Take theirs, Keep mine', async () => {
     const { api, studioId } = await studioApi(designer)
@@ -86,7 +76,7 @@ describe('two people editing one motif', () => {
     expect(await rows()).toEqual(['x.......', '........', '........', '........'])
     await maren.page.locator('[data-test="motif-conflict"]').scrollIntoViewIfNeeded()
     await screenshot(maren.page, 'motif-conflict-1024x768')
-    expect(await axeSerious(maren.page), 'conflict banner').toEqual([])
+    expect(await seriousAxeViolations(maren.page), 'conflict banner').toEqual([])
 
     // Combine: her two stitches on top of his chart.
     await maren.page.click('[data-test="motif-conflict-combine"]')
@@ -159,7 +149,7 @@ describe('two people editing one plan', () => {
     expect(await maren.page.textContent('[data-test="plan-conflict-differs"]')).toContain('name, notes')
     expect((await api.get(`/api/plans/${plan.id}`)).body).toMatchObject({ name: 'Cardigan, Idris', notes: '', version: 1 })
     await screenshot(maren.page, 'plan-conflict-1024x768')
-    expect(await axeSerious(maren.page), 'plan conflict').toEqual([])
+    expect(await seriousAxeViolations(maren.page), 'plan conflict').toEqual([])
 
     await maren.page.click('[data-test="plan-conflict-mine-keep"]')
     await maren.page.waitForFunction(() => document.querySelector('[data-test="plan-title"]')?.textContent === 'Cardigan, Maren')

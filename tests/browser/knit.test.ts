@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser, BrowserContext, Page } from 'playwright-core'
 import { signedIn } from '../support/api'
-import { addAxe, launchBrowser, newTabletContext, screenshot, signIn, watchForErrors } from '../support/browser'
+import { launchBrowser, newTabletContext, screenshot, signIn, watchForErrors, seriousAxeViolations } from '../support/browser'
 
 // The knit view as a knitter uses it: taps, a pedal, offline reloads, a second tablet.
 // Each test knits a piece of its own (made through the API for the demo knitter), so tests
@@ -173,11 +173,7 @@ describe('the knit view', () => {
     for (const dark of [false, true]) {
       const context = await newTabletContext(browser, 'landscape', { dark })
       const page = await openKnitView(context, pieceId)
-      await addAxe(page)
-      const result = await page.evaluate(async () =>
-        (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string; nodes: unknown[] }[] }> } }).axe.run(),
-      )
-      const serious = result.violations.filter(v => v.impact === 'serious' || v.impact === 'critical').map(v => `${v.id} (${v.nodes.length})`)
+      const serious = await seriousAxeViolations(page)
       expect(serious, dark ? 'dark theme' : 'light theme').toEqual([])
       if (dark) await screenshot(page, 'knit-landscape-dark')
       await context.close()

@@ -3,7 +3,7 @@ import { PNG } from 'pngjs'
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser, BrowserContext, Page } from 'playwright-core'
 import { signedIn } from '../support/api'
-import { addAxe, launchBrowser, newTabletContext, screenshot, signIn, watchForErrors } from '../support/browser'
+import { launchBrowser, newTabletContext, screenshot, signIn, watchForErrors, seriousAxeViolations } from '../support/browser'
 
 // The motif library and editor as designers and knitters use them on a tablet. Every test
 // makes the motifs it changes, with a name of its own, so tests never depend on each other.
@@ -56,16 +56,6 @@ async function waitForSaved(page: Page) {
   await page.waitForFunction(() => document.querySelector('[data-test="motif-save-state"]')?.getAttribute('data-state') === 'saved', undefined, {
     timeout: 15_000,
   })
-}
-
-async function axeSerious(page: Page) {
-  await addAxe(page)
-  const result = await page.evaluate(async () =>
-    (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe.run(),
-  )
-  return result.violations
-    .filter(v => v.impact === 'serious' || v.impact === 'critical')
-    .map(v => `${v.id}: ${v.nodes.map(n => n.target.join(' ')).join(', ')}`)
 }
 
 describe('the motif editor', () => {
@@ -164,7 +154,7 @@ describe('the motif editor', () => {
       await screenshot(page, name)
       await page.evaluate(() => document.querySelector('[data-test="motif-repeat-preview"]')?.scrollIntoView())
       await screenshot(page, `${name}-preview`)
-      expect(await axeSerious(page), name).toEqual([])
+      expect(await seriousAxeViolations(page), name).toEqual([])
       // Touch targets: every button and link on the editor is at least 44 px high.
       const small = await page.$$eval('main button, main a, main select, main input:not([type=checkbox]):not([type=color])', els => els
         .filter(e => (e as HTMLElement).offsetParent !== null)
@@ -320,7 +310,7 @@ describe('the library', () => {
     const demo = ['Heron steps', 'Lantern medallion', 'Marsh wave', 'Pebble check']
     expect((await names()).filter(n => demo.includes(n!))).toEqual(demo)
     await screenshot(page, 'motif-library-portrait')
-    expect(await axeSerious(page), 'library').toEqual([])
+    expect(await seriousAxeViolations(page), 'library').toEqual([])
 
     await page.click('[data-test="motif-sort-name"]') // name, descending
     await page.waitForFunction(() => new URL(location.href).searchParams.get('dir') === 'desc')
@@ -398,7 +388,7 @@ describe('the library', () => {
     const before = await page.$eval('[data-test="motif-grid"]', c => (c as HTMLCanvasElement).toDataURL())
     await stitch(page, 0, 0)
     expect(await page.$eval('[data-test="motif-grid"]', c => (c as HTMLCanvasElement).toDataURL())).toBe(before)
-    expect(await axeSerious(page), 'read-only editor').toEqual([])
+    expect(await seriousAxeViolations(page), 'read-only editor').toEqual([])
     await context.close()
   })
 })

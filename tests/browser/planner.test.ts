@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser, Page } from 'playwright-core'
-import { addAxe, launchBrowser, newTabletContext, screenshot, screenshotDir, signIn, watchForErrors } from '../support/browser'
+import { launchBrowser, newTabletContext, screenshot, screenshotDir, signIn, watchForErrors, seriousAxeViolations } from '../support/browser'
 
 // The planner as a designer uses it (stock, a plan from a target size, shaping, publish) and
 // as a knitter (a project from the published plan, then the knit view of its first piece).
@@ -16,16 +16,6 @@ async function signedInPage(email: string, orientation: 'landscape' | 'portrait'
   await signIn(page, email)
   await page.waitForURL(url => url.pathname === '/')
   return { context, page, errors }
-}
-
-async function seriousAxeViolations(page: Page) {
-  await addAxe(page)
-  const result = await page.evaluate(async () =>
-    (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe.run(),
-  )
-  return result.violations
-    .filter(v => v.impact === 'serious' || v.impact === 'critical')
-    .map(v => `${v.id} (${v.nodes.map(n => n.target.join(' ')).join(', ')})`)
 }
 
 async function chooseOption(page: Page, selector: string, text: string) {

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser } from 'playwright-core'
-import { addAxe, launchBrowser, newTabletContext, screenshot, signIn } from '../support/browser'
+import { launchBrowser, newTabletContext, screenshot, signIn, seriousAxeViolations } from '../support/browser'
 
 let browser: Browser
 beforeAll(async () => { browser = await launchBrowser() })
@@ -58,11 +58,7 @@ describe('projects', () => {
     await page.click('[data-test="create-project"]')
     await page.waitForSelector('[data-test="form-message"]')
     expect(await page.textContent('[data-test="new-project-form"]')).toMatch(/name: is required|is required/)
-    await addAxe(page)
-    const result = await page.evaluate(async () =>
-      (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string }[] }> } }).axe.run(),
-    )
-    expect(result.violations.filter(v => v.impact === 'serious' || v.impact === 'critical').map(v => v.id)).toEqual([])
+    expect(await seriousAxeViolations(page)).toEqual([])
     await context.close()
   })
 })

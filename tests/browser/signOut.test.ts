@@ -1,7 +1,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser, BrowserContext, Page } from 'playwright-core'
 import { apiClient } from '../support/api'
-import { addAxe, launchBrowser, newTabletContext, screenshot, signIn } from '../support/browser'
+import { launchBrowser, newTabletContext, screenshot, signIn, seriousAxeViolations } from '../support/browser'
 import { closeTestDb, fixturePassword, makeProject, makeStudio } from '../support/db'
 
 // Sign-out on a shared tablet: steps not yet sent are lost only after a clear warning, and
@@ -38,14 +38,6 @@ async function serverRows(email: string, pieceId: number) {
   const api = apiClient()
   await api.post('/api/auth/login', { email, password: fixturePassword })
   return (await api.get(`/api/pieces/${pieceId}/progress`)).body.completedRows as number
-}
-
-async function seriousAxeViolations(page: Page) {
-  await addAxe(page) // the page's CSP refuses an injected script tag
-  const result = await page.evaluate(async () =>
-    (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string }[] }> } }).axe.run(),
-  )
-  return result.violations.filter(v => v.impact === 'serious' || v.impact === 'critical').map(v => v.id)
 }
 
 /** Signs in, opens the piece, goes offline and knits one row pair, then goes to the dashboard (offline, from the shell). */

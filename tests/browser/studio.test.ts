@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser } from 'playwright-core'
-import { addAxe, launchBrowser, newTabletContext, screenshot, signIn } from '../support/browser'
+import { launchBrowser, newTabletContext, screenshot, signIn, seriousAxeViolations } from '../support/browser'
 
 let browser: Browser
 beforeAll(async () => { browser = await launchBrowser() })
@@ -18,11 +18,7 @@ describe('the studio page', () => {
     expect(await page.textContent('[data-test="production"]')).toContain('Marsh wave jumper')
     expect(await page.textContent('[data-test="member-list"]')).toContain('Tamsin Roe')
     await screenshot(page, 'studio-owner-landscape')
-    await addAxe(page)
-    const result = await page.evaluate(async () =>
-      (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string }[] }> } }).axe.run(),
-    )
-    expect(result.violations.filter(v => v.impact === 'serious' || v.impact === 'critical').map(v => v.id)).toEqual([])
+    expect(await seriousAxeViolations(page)).toEqual([])
     await context.close()
   })
 

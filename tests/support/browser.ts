@@ -63,3 +63,14 @@ const axeSource = readFileSync(createRequire(import.meta.url).resolve('axe-core/
 export async function addAxe(page: Page) {
   await page.evaluate(`${axeSource}\n;void 0`)
 }
+
+/** axe-core's serious and critical findings on the page, each as "rule (where)"; [] when none. */
+export async function seriousAxeViolations(page: Page): Promise<string[]> {
+  await addAxe(page)
+  const result = await page.evaluate(async () =>
+    (window as unknown as { axe: { run: () => Promise<{ violations: { id: string; impact: string; nodes: { target: string[] }[] }[] }> } }).axe.run(),
+  )
+  return result.violations
+    .filter(v => v.impact === 'serious' || v.impact === 'critical')
+    .map(v => `${v.id} (${v.nodes.map(n => n.target.join(' ')).join(', ')})`)
+}
