@@ -22,14 +22,7 @@ export function expectedVersion(event: H3Event, bodyVersion: number | undefined)
   if (!header || header === '*') return undefined
   const match = ifMatchVersion.exec(header)
   const parsed = match ? editVersion.safeParse(Number(match[1] ?? match[2])) : undefined
-  if (!parsed?.success) {
-    throw createError({
-      statusCode: 400,
-      statusMessage: 'Bad Request',
-      message: 'If-Match: must be one version in quotes, like "3" (the version or ETag the edit was made from)',
-      data: { issues: [{ path: ['If-Match'], message: 'must be one version in quotes, like "3"' }] },
-    })
-  }
+  if (!parsed?.success) throw fieldError('If-Match', 'must be one version in quotes, like "3" (the version or ETag the edit was made from)')
   return parsed.data
 }
 
