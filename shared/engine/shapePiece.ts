@@ -114,6 +114,8 @@ export interface ShapedRow {
   held: number
   /** This part's own needles in holding position (short rows), counted in `held` and `stitches`. */
   heldInPart: number
+  /** Where this part's own held needles are: at its outer edges (left + right = heldInPart). */
+  heldAt: { left: number; right: number }
   /** Fabric row from the cast-on (0-based); the left part's rows repeat the right part's. */
   row: number
   /** At the start of the row, before knitting it. */
@@ -416,6 +418,7 @@ export function shapePiece(spec: ShapeSpec, gauge: { stitchesPer10cm: number; ro
       stitches,
       held: own + elsewhere,
       heldInPart: own,
+      heldAt: { ...heldAt },
       row,
       castOff: { ...co },
       decrease: { ...e.decrease },

@@ -3,6 +3,7 @@ import fc from 'fast-check'
 import { KnittingInputError, rowsForLength, shapePiece, spreadShaping, stitchesForWidth } from '#shared/engine'
 import type { ShapedPiece, ShapedRow, ShapeSpec } from '#shared/engine'
 import { inputError } from './helpers'
+import { bodyArb, cm, frontSpec, gaugeArb, sleeveSpec, specArb, tryShape } from '../../support/shapeSpecs'
 
 // ---------------------------------------------------------------------------------------------
 // Two pieces worked out by hand first, as a pattern sheet would give them (common practice:
@@ -102,6 +103,7 @@ function expandSheet(segments: Segment[]): ShapedRow[] {
         stitches,
         held: seg.held,
         heldInPart: 0,
+        heldAt: { left: 0, right: 0 },
         row: r,
         castOff: { left: cl, right: cr, centre: cc },
         decrease: { left: dl, right: dr },
@@ -115,16 +117,6 @@ function expandSheet(segments: Segment[]): ShapedRow[] {
 const each = (rows: number[], line: Omit<SheetRow, 'row'>): SheetRow[] => rows.map(row => ({ row, ...line }))
 const range = (from: number, to: number, step = 1) => Array.from({ length: Math.floor((to - from) / step) + 1 }, (_, i) => from + i * step)
 
-const frontSpec: ShapeSpec = {
-  kind: 'body',
-  carriageStart: 'left',
-  hemWidth: 50,
-  width: 54,
-  lengthToUnderarm: 36,
-  armhole: { castOff: 2, decrease: 1, depth: 20 },
-  shoulder: { width: 16, drop: 1.5, method: 'cast-off' },
-  neck: { width: 16, depth: 8, shape: 'round' },
-}
 
 const neckDecreaseRows = [...range(193, 213, 2), 216]
 const frontSheet: Segment[] = [
@@ -151,13 +143,6 @@ const frontSheet: Segment[] = [
   },
 ]
 
-const sleeveSpec: ShapeSpec = {
-  kind: 'sleeve',
-  hemWidth: 20,
-  width: 32,
-  lengthToUnderarm: 45,
-  cap: { castOff: 2, height: 12, topWidth: 8 },
-}
 
 const sleeveSheet: Segment[] = [
   {
@@ -217,7 +202,7 @@ describe('shapePiece — the simplest shapes', () => {
       const start = spec.carriageStart ?? 'right'
       piece.rows.forEach((r, i) => {
         expect(r).toEqual({
-          part: 'whole', carriage: i % 2 === 0 ? start : (start === 'left' ? 'right' : 'left'), stitches: castOn, held: 0, heldInPart: 0, row: i,
+          part: 'whole', carriage: i % 2 === 0 ? start : (start === 'left' ? 'right' : 'left'), stitches: castOn, held: 0, heldInPart: 0, heldAt: { left: 0, right: 0 }, row: i,
           castOff: { left: 0, right: 0, centre: 0 }, decrease: { left: 0, right: 0 }, increase: { left: 0, right: 0 },
         })
       })
@@ -293,47 +278,6 @@ describe('shapePiece — the simplest shapes', () => {
 // Properties over random valid specs and gauges.
 
 const other = (s: 'left' | 'right') => (s === 'left' ? 'right' : 'left')
-const gaugeArb = fc.record({
-  stitchesPer10cm: fc.integer({ min: 150, max: 450 }).map(n => n / 10),
-  rowsPer10cm: fc.integer({ min: 200, max: 600 }).map(n => n / 10),
-})
-const cm = (min: number, max: number) => fc.integer({ min: min * 4, max: max * 4 }).map(n => n / 4)
-
-const bodyArb: fc.Arbitrary<ShapeSpec> = fc
-  .record({
-    kind: fc.constant('body' as const),
-    carriageStart: fc.option(fc.constantFrom('left' as const, 'right' as const), { nil: undefined }),
-    hemWidth: cm(30, 65),
-    widen: fc.option(cm(-4, 8), { nil: undefined }),
-    lengthToUnderarm: cm(15, 50),
-    armhole: fc.option(fc.record({ castOff: cm(0, 4), decrease: cm(0, 3), depth: cm(14, 26) }), { nil: undefined }),
-    shoulder: fc.option(fc.record({ width: cm(6, 15), drop: cm(0, 3), method: fc.constantFrom('cast-off' as const, 'hold' as const) }), { nil: undefined }),
-    neck: fc.option(fc.record({ width: cm(8, 18), depth: cm(2, 12), shape: fc.constantFrom('round' as const, 'v' as const, 'square' as const) }), {
-      nil: undefined,
-    }),
-  })
-  .map(({ widen, ...s }) => ({ ...s, width: widen === undefined ? undefined : s.hemWidth + widen }))
-
-const sleeveArb: fc.Arbitrary<ShapeSpec> = fc.record({
-  kind: fc.constant('sleeve' as const),
-  carriageStart: fc.option(fc.constantFrom('left' as const, 'right' as const), { nil: undefined }),
-  hemWidth: cm(14, 30),
-  widen: fc.option(cm(0, 16), { nil: undefined }),
-  lengthToUnderarm: cm(10, 50),
-  cap: fc.option(fc.record({ castOff: cm(0, 3), height: cm(4, 16), topWidth: cm(3, 12) }), { nil: undefined }),
-}).map(({ widen, ...s }) => ({ ...s, width: widen === undefined ? undefined : s.hemWidth + widen }))
-
-const specArb = fc.oneof(bodyArb, sleeveArb)
-
-/** Shape, or null when the spec is refused (the refusal must be a KnittingInputError). */
-function tryShape(spec: ShapeSpec, gauge: { stitchesPer10cm: number; rowsPer10cm: number }): ShapedPiece | null {
-  try { return shapePiece(spec, gauge) }
-  catch (e) {
-    if (e instanceof KnittingInputError) return null
-    throw e
-  }
-}
-
 const G = (gauge: { stitchesPer10cm: number; rowsPer10cm: number }) => ({
   ...gauge,
   stitchWidthMm: 100 / gauge.stitchesPer10cm,
