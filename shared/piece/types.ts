@@ -1,6 +1,8 @@
 // A piece as the knitter follows it at the machine: the yarn slots and the sections of its
 // timeline, frozen when the project is made, and the kinds of row event that move it.
 
+import type { ShapedRow } from '#shared/engine'
+
 /** A yarn slot letter: 'A' is the main colour, then 'B', 'C' … */
 export type YarnSlot = string
 
@@ -23,6 +25,21 @@ export type PieceSection
       note?: string
     }
 
+/**
+ * A shaped piece as frozen in a timeline: the engine's rows (shapePiece) for the size knitted.
+ * With a shape, `needles` is the cast-on and the sections give the fabric rows from the cast-on
+ * up; the machine rows follow `rows` (the left of the neck knits the same fabric rows again).
+ */
+export interface TimelineShape {
+  /** The size knitted, as the plan names it. */
+  size: string
+  kind: 'body' | 'sleeve'
+  castOn: number
+  rows: ShapedRow[]
+  /** Stitches left on the needles after the last row (a straight top). */
+  leftOnNeedles: number
+}
+
 /** Everything needed to compile and show one piece's rows; frozen when the project is made. */
 export interface PieceTimeline {
   technique: 'together' | 'colour-by-colour'
@@ -30,6 +47,8 @@ export interface PieceTimeline {
   needles: number
   sections: PieceSection[]
   yarns: SlotYarn[]
+  /** Absent for a rectangle (the needles stay `needles` on every row). */
+  shape?: TimelineShape
 }
 
 export const rowEventKinds = ['advance', 'back', 'jump'] as const

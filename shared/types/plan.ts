@@ -35,6 +35,43 @@ export type PlanSection
 
 export type PlanSectionKind = PlanSection['kind']
 
+/**
+ * The measurements a shaped piece is drawn from: flat lengths of the finished piece, in the
+ * piece's unit. Widths are across the whole piece (hemWidth, width, neckWidth, capTopWidth) or
+ * one side (armholeCastOff, armholeDecrease, capCastOff, shoulderWidth); lengths run up the piece.
+ */
+export const shapeMeasurements = [
+  'hemWidth', 'width', 'lengthToUnderarm',
+  'armholeCastOff', 'armholeDecrease', 'armholeDepth',
+  'shoulderWidth', 'shoulderDrop',
+  'neckWidth', 'neckDepth',
+  'capCastOff', 'capHeight', 'capTopWidth',
+] as const
+export type ShapeMeasurement = typeof shapeMeasurements[number]
+
+/**
+ * A piece shaped from measurements (the engine's shapePiece), for every size of the plan.
+ * Which measurements a piece needs follows from its choices: a body with an armhole needs the
+ * three armhole ones, a sleeve with a cap the three cap ones, and so on (shared/planner/sizes).
+ */
+export interface PieceShape {
+  kind: 'body' | 'sleeve'
+  /** Side of the carriage before the first row after the cast-on. */
+  carriageStart: 'left' | 'right'
+  /** Body: a set-in armhole; false is a drop shoulder. */
+  armhole: boolean
+  /** Body: how each shoulder is shaped; null for straight shoulders. */
+  shoulder: 'cast-off' | 'hold' | null
+  /** Body: the neckline (a front deep, a back shallow); null for none. */
+  neck: 'round' | 'v' | 'square' | null
+  /** Sleeve: a set-in cap; false is a straight top (drop shoulder). */
+  cap: boolean
+  /** One value per size of the plan (in the plan's size order), in the piece's unit. */
+  measurements: Partial<Record<ShapeMeasurement, number[]>>
+  /** Ease added to a measurement for every size (same unit, may be negative); absent is 0. */
+  ease: Partial<Record<ShapeMeasurement, number>>
+}
+
 export interface PlanPieceInput {
   name: string
   /** Pieces knitted more than once (two sleeves): copies 2. */
@@ -45,6 +82,12 @@ export interface PlanPieceInput {
   /** Added to the target width before needles are counted (same unit; may be negative). */
   ease: number
   sections: PlanSection[]
+  /**
+   * Null (or absent): a rectangle of targetWidth + ease whose sections decide its rows. Given:
+   * the piece is shaped from its measurements for the size being worked out, and its sections
+   * fill its height from the cast-on up (plain in slot 'A' above the last one; cut at the top).
+   */
+  shape?: PieceShape | null
 }
 
 export interface PlanPerson { id: number; name: string }
@@ -54,6 +97,8 @@ export interface PlanSummary {
   id: number
   studioId: number
   name: string
+  /** The plan's sizes in order, smallest first, as the designer names them ("S", "M" … or "chest 86"). */
+  sizes: string[]
   machineId: number | null
   swatchId: number | null
   yarns: PlanYarnSlot[]
