@@ -21,7 +21,7 @@ import { KnittingInputError } from './errors'
 import { checkPlacement, needleColumns } from './placement'
 import type { PlanInput } from './rows'
 import { checkPlan } from './rows'
-import type { Placement } from './types'
+import type { Chart, Placement } from './types'
 import { requireObject, requirePositive } from './validate'
 
 export interface YarnEstimateInput {
@@ -107,6 +107,23 @@ export function estimateYarn(input: YarnEstimateInput): YarnEstimate {
     add(s.contrast, contrastStitches * passes, main * passes)
   })
 
+  const yarns = yarnAmounts(stitches, floats, gramsPerStitch, pitch, grist)
+
+  const model = [
+    `Each knitted stitch weighs as much as one swatch stitch (${swatchGrams} g over ${swatchStitches} stitches).`,
+    `In patterned rows a yarn floats behind every needle it does not knit, and each needle floated past adds one needle pitch (${pitch} mm) of yarn, weighed by that yarn's metres per 100 g.`,
+    plan.technique === 'colour-by-colour'
+      ? `Colours are fed one at a time, ${passes} passes each per chart row; every pass knits that colour's stitches and floats past the rest.`
+      : 'Both colours are fed together, one pass per chart row.',
+    'A row where a yarn knits nothing still counts a full-width float, as the yarn travels with the carriage; cutting it instead saves that yarn.',
+  ].join(' ')
+  return { yarns, model }
+}
+
+/** Grams and metres per yarn from its stitches and float needles (the model above). */
+function yarnAmounts(
+  stitches: Map<string, number>, floats: Map<string, number>, gramsPerStitch: number, pitch: number, grist: Record<string, unknown>,
+): YarnAmount[] {
   const yarns: YarnAmount[] = []
   for (const [yarn, st] of stitches) {
     const g = grist[yarn]
@@ -122,13 +139,66 @@ export function estimateYarn(input: YarnEstimateInput): YarnEstimate {
     yarns.push({ yarn, stitches: st, floatStitches, floatMm, stitchGrams, floatGrams, grams, metres: grams * metresPer100g / 100 })
   }
 
+  return yarns
+}
+
+/** One row of a shaped piece for estimateRowsYarn: the needles that knit it and what it knits. */
+export interface KnittedRow {
+  /** Needles knitFrom … knitTo − 1 knit this row (cast-on positions; none when equal). */
+  knitFrom: number
+  knitTo: number
+  /** A plain row: [yarn]; a patterned row, both yarns in one pass: [main, contrast]. */
+  yarns: string[]
+  /** Patterned rows: the chart, the chart row knitted and the column needle 0 knits. */
+  chart?: Chart
+  chartRow?: number
+  offset?: number
+}
+
+export interface RowsYarnInput extends Omit<YarnEstimateInput, 'plan' | 'placement'> {
+  rows: KnittedRow[]
+}
+
+/**
+ * Yarn per colour row by row, each row at its real width (a shaped piece): the same model as
+ * estimateYarn with both yarns in one pass — needle n knits chart column (offset + n) mod width,
+ * so the motif stays on the bed while the edges move; held needles are not in the row.
+ */
+export function estimateRowsYarn(input: RowsYarnInput): YarnEstimate {
+  const inp = requireObject(input, 'estimate')
+  const swatch = requireObject(inp.swatch, 'swatch')
+  const swatchStitches = requirePositive(swatch.stitches, 'swatch.stitches')
+  const swatchGrams = requirePositive(swatch.grams, 'swatch.grams')
+  const pitch = requirePositive(input.needlePitchMm, 'needlePitchMm')
+  const grist = requireObject(inp.yarns, 'yarns')
+  if (!Array.isArray(input.rows)) throw new KnittingInputError('rows: expected a list of rows', { field: 'rows' })
+  const stitches = new Map<string, number>()
+  const floats = new Map<string, number>()
+  const add = (yarn: string, st: number, fl: number): void => {
+    stitches.set(yarn, (stitches.get(yarn) ?? 0) + st)
+    floats.set(yarn, (floats.get(yarn) ?? 0) + fl)
+  }
+  input.rows.forEach((row, i) => {
+    const n = Math.max(0, row.knitTo - row.knitFrom)
+    const [main, contrast] = row.yarns
+    if (!main) throw new KnittingInputError(`rows[${i}].yarns: no yarn`, { field: `rows[${i}].yarns` })
+    if (!contrast || !row.chart) {
+      add(main, n, 0)
+      return
+    }
+    const { width, cells } = row.chart
+    const base = (row.chartRow ?? 0) * width
+    let c = 0
+    for (let k = row.knitFrom; k < row.knitTo; k++) c += cells[base + ((((row.offset ?? 0) + k) % width) + width) % width]!
+    add(main, n - c, c)
+    add(contrast, c, n - c)
+  })
+  const yarns = yarnAmounts(stitches, floats, swatchGrams / swatchStitches, pitch, grist)
   const model = [
     `Each knitted stitch weighs as much as one swatch stitch (${swatchGrams} g over ${swatchStitches} stitches).`,
+    'Every row is counted at its real width: the needles that knit it, with needles in holding position and cast-off stitches left out.',
     `In patterned rows a yarn floats behind every needle it does not knit, and each needle floated past adds one needle pitch (${pitch} mm) of yarn, weighed by that yarn's metres per 100 g.`,
-    plan.technique === 'colour-by-colour'
-      ? `Colours are fed one at a time, ${passes} passes each per chart row; every pass knits that colour's stitches and floats past the rest.`
-      : 'Both colours are fed together, one pass per chart row.',
-    'A row where a yarn knits nothing still counts a full-width float, as the yarn travels with the carriage; cutting it instead saves that yarn.',
+    'Both colours are fed together, one pass per chart row.',
   ].join(' ')
   return { yarns, model }
 }

@@ -43,15 +43,21 @@ export interface KnitPosition {
   upcoming: null | { row: number; rowsAway: number; kind: 'section' | 'end'; text: string }
 }
 
-/** Rows of each section, in order, from the compiled rows. */
-function sectionSpans(compiled: CompiledPlan, count: number) {
-  const spans = Array.from({ length: count }, () => ({ start: -1, rows: 0 }))
+/**
+ * The stretches of rows that knit one section, in knitting order: a section is one stretch in a
+ * rectangle; in a shaped piece the left of the neck knits the top sections again, as new stretches.
+ * A stretch starts where the section changes or its row count starts again (rowInSection 0).
+ */
+function sectionRuns(compiled: CompiledPlan) {
+  const runs: { section: number; start: number; rows: number }[] = []
+  const runOf = new Int32Array(compiled.rows.length)
   compiled.rows.forEach((r, i) => {
-    const span = spans[r.section]!
-    if (span.start < 0) span.start = i
-    span.rows++
+    const last = runs[runs.length - 1]
+    if (!last || last.section !== r.section || r.rowInSection === 0) runs.push({ section: r.section, start: i, rows: 0 })
+    runs[runs.length - 1]!.rows++
+    runOf[i] = runs.length - 1
   })
-  return spans
+  return { runs, runOf }
 }
 
 function describeSection(s: PieceSection, rows: number, yarns: Map<string, SlotYarn>) {
@@ -65,7 +71,7 @@ export function knitPosition(timeline: PieceTimeline, compiled: CompiledPlan, co
   const done = Math.max(0, Math.min(completedRows, totalRows))
   const yarnBySlot = new Map(timeline.yarns.map(y => [y.slot, y]))
   const pick = (slots: string[]) => slots.map(s => yarnBySlot.get(s) ?? { slot: s, name: s, hex: '#888888', symbol: '?' })
-  const spans = sectionSpans(compiled, timeline.sections.length)
+  const { runs, runOf } = sectionRuns(compiled)
   const base = { totalRows, completedRows: done, totalPairs: Math.ceil(totalRows / 2) }
   if (done >= totalRows) {
     return {
@@ -85,7 +91,8 @@ export function knitPosition(timeline: PieceTimeline, compiled: CompiledPlan, co
   }
 
   const here = compiled.rows[done]!
-  const span = spans[here.section]!
+  const run = runOf[done]!
+  const span = runs[run]!
   const s = timeline.sections[here.section]!
   const rowInSection = done - span.start + 1
   const chartHeight = s.kind === 'motif' ? s.chart.length : null
@@ -99,15 +106,15 @@ export function knitPosition(timeline: PieceTimeline, compiled: CompiledPlan, co
   }
   const change = compiled.changes[lo]
   const changeNow = lo > 0 && compiled.changes[lo - 1] === done
-  const nextSectionIndex = here.section + 1 < timeline.sections.length ? here.section + 1 : null
+  const nextRun = runs[run + 1]
   const sectionEnd = span.start + span.rows // 0-based index of the first row after this section
   const upcoming
-    = nextSectionIndex !== null
+    = nextRun
       ? {
           row: sectionEnd + 1,
           rowsAway: sectionEnd - done,
           kind: 'section' as const,
-          text: describeSection(timeline.sections[nextSectionIndex]!, spans[nextSectionIndex]!.rows, yarnBySlot),
+          text: describeSection(timeline.sections[nextRun.section]!, nextRun.rows, yarnBySlot),
         }
       : { row: totalRows, rowsAway: totalRows - done, kind: 'end' as const, text: 'End of the piece: cast off as the plan says' }
 
@@ -150,7 +157,6 @@ export function cuesForStep(compiled: CompiledPlan, timeline: PieceTimeline, bef
   if (after >= total) return ['end']
   // A change at row index c is announced once the knitter has completed c − ahead rows.
   if (compiled.changes.some(c => c - ahead > before && c - ahead <= after)) cues.push('change')
-  const spans = sectionSpans(compiled, timeline.sections.length)
-  if (spans.slice(1).some(sp => sp.start > 0 && sp.start > before && sp.start <= after)) cues.push('section')
+  if (sectionRuns(compiled).runs.slice(1).some(sp => sp.start > before && sp.start <= after)) cues.push('section')
   return cues
 }

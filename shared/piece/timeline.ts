@@ -33,9 +33,42 @@ export function pieceTimelinePlan(t: PieceTimeline): PlanInput {
   return { technique: t.technique, passesPerColour: t.technique === 'colour-by-colour' ? t.passesPerColour : undefined, sections }
 }
 
-/** Compile a piece's timeline into machine rows (compilePlan's result: rows and yarn changes). */
+/**
+ * Compile a piece's timeline into machine rows (compilePlan's result: rows and yarn changes).
+ * A shaped piece's sections compile to its fabric rows, which are then knitted in the shape's
+ * order: each machine row of the shape knits the fabric row it names, so the left of the neck
+ * knits the same yarns and chart rows as the right did at that height.
+ */
 export function compilePieceTimeline(t: PieceTimeline): CompiledPlan {
-  return compilePlan(pieceTimelinePlan(t))
+  const fabric = compilePlan(pieceTimelinePlan(t))
+  return t.shape ? knitInShapeOrder(fabric, t) : fabric
+}
+
+function knitInShapeOrder(fabric: CompiledPlan, t: PieceTimeline): CompiledPlan {
+  const shape = t.shape!
+  if (t.technique !== 'together') {
+    throw new KnittingInputError('shape: a shaped piece is knitted with both yarns in one pass (technique "together")', { field: 'technique' })
+  }
+  const height = shape.rows.reduce((n, r) => Math.max(n, r.row + 1), 0)
+  if (fabric.rows.length !== height) {
+    throw new KnittingInputError(`sections: ${fabric.rows.length} rows, the shaped piece is ${height} rows high`, { field: 'sections' })
+  }
+  let run = -1
+  let count = 0
+  const rows = shape.rows.map((r, i) => {
+    const f = fabric.rows[r.row]!
+    // rowInSection counts on within one stretch of a section; the left part starts it again.
+    count = i > 0 && f.section === run && shape.rows[i - 1]!.part === r.part ? count + 1 : 0
+    run = f.section
+    return { ...f, rowInSection: count }
+  })
+  const changes: number[] = []
+  for (let r = 1; r < rows.length; r++) {
+    const a = rows[r]!.yarns
+    const b = rows[r - 1]!.yarns
+    if (a.length !== b.length || a.some((y, k) => y !== b[k])) changes.push(r)
+  }
+  return { rows, changes }
 }
 
 /** Slot letters and symbols for yarns in order: the first is 'A', the main colour. */
