@@ -16,7 +16,7 @@ import {
   analyseFloats, centredOffset, chartFromRows, chartToRows, describeShaping, KnittingInputError, repeatsAcross, rowsForLength, spreadShaping, stitchesForWidth,
 } from '#shared/engine'
 import { slotSymbols, type PieceSection, type PieceTimeline, type SlotYarn } from '#shared/piece/types'
-import type { PlanPieceInput, PlanSectionNumbers } from '#shared/types/plan'
+import type { PieceShapeNumbers, PlanPieceInput, PlanSectionNumbers } from '#shared/types/plan'
 import type { SectionShaping, Chart, Gauge } from '#shared/engine'
 import { compilePieceTimeline } from '#shared/piece/timeline'
 
@@ -53,6 +53,8 @@ export interface WorkedPlanPiece {
   sections: PlanSectionNumbers[]
   machineRows: number
   colourChanges: number
+  /** A shaped piece's counts (null for a rectangle). */
+  shape: PieceShapeNumbers | null
 }
 
 export const lengthInCm = (value: number, unit: 'cm' | 'in') => (unit === 'in' ? value * 2.54 : value)
@@ -68,6 +70,35 @@ export function workPlanPiece(piece: PlanPieceInput, ctx: PlanPieceContext): Wor
   const needles = stitchesForWidth(lengthInCm(piece.targetWidth + piece.ease, piece.unit), ctx.gauge)
   if (needles < 1) throw new KnittingInputError('targetWidth: the width with ease gives no needles', { field: 'targetWidth' })
   const targetRows = rowsForLength(lengthInCm(piece.targetLength, piece.unit), ctx.gauge)
+  const { sections: out, offsets, shaping, numbers } = workSections(piece, needles, ctx)
+  const timeline: PieceTimeline = {
+    technique: ctx.technique,
+    passesPerColour: ctx.technique === 'colour-by-colour' ? ctx.passesPerColour : 1,
+    needles,
+    sections: out,
+    yarns: planSlotYarns(ctx.yarns),
+  }
+  const compiled = compilePieceTimeline(timeline)
+  return {
+    needles, targetRows, plannedRows: numbers.reduce((n, s) => n + s.rows, 0), timeline, offsets, shaping, sections: numbers,
+    machineRows: compiled.rows.length, colourChanges: compiled.changes.length, shape: null,
+  }
+}
+
+export interface WorkedSections {
+  sections: PieceSection[]
+  /** Motif offset for each timeline section (0 for plain ones). */
+  offsets: number[]
+  shaping: (SectionShaping | null)[]
+  /** One per plan section, notes included. */
+  numbers: PlanSectionNumbers[]
+}
+
+/**
+ * A piece's plan sections → timeline sections on `needles` cast-on needles. A shaped piece
+ * (`shaped`) takes its shaping from its measurements, so a shaping section is refused there.
+ */
+export function workSections(piece: PlanPieceInput, needles: number, ctx: PlanPieceContext, shaped = false): WorkedSections {
   const slots = new Set(ctx.yarns.map(y => y.slot))
   const needSlot = (slot: string, field: string) => {
     if (!slots.has(slot)) throw new KnittingInputError(`${field}: the plan has no yarn in slot ${slot}`, { field })
@@ -116,6 +147,9 @@ export function workPlanPiece(piece: PlanPieceInput, ctx: PlanPieceContext): Wor
       })
     }
     else if (s.kind === 'shaping') {
+      if (shaped) {
+        throw new KnittingInputError(`${field}: a shaped piece takes its shaping from its measurements; remove this shaping section`, { field: `${field}.kind` })
+      }
       let steps
       try { steps = spreadShaping(s.stitchesEachSide, s.rows) }
       catch (e) {
@@ -143,16 +177,5 @@ export function workPlanPiece(piece: PlanPieceInput, ctx: PlanPieceContext): Wor
     const last = out[out.length - 1]!
     out[out.length - 1] = { ...last, note: [last.note, ...pending].filter(Boolean).join(' — ') }
   }
-  const timeline: PieceTimeline = {
-    technique: ctx.technique,
-    passesPerColour: ctx.technique === 'colour-by-colour' ? ctx.passesPerColour : 1,
-    needles,
-    sections: out,
-    yarns: planSlotYarns(ctx.yarns),
-  }
-  const compiled = compilePieceTimeline(timeline)
-  return {
-    needles, targetRows, plannedRows: numbers.reduce((n, s) => n + s.rows, 0), timeline, offsets, shaping, sections: numbers,
-    machineRows: compiled.rows.length, colourChanges: compiled.changes.length,
-  }
+  return { sections: out, offsets, shaping, numbers }
 }

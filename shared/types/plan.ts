@@ -2,7 +2,7 @@
 // Times are ISO strings (UTC). Lengths carry their unit; engine numbers are unrounded
 // unless named as counts (needles, rows, stitches).
 
-import type { Distinguishability, SectionShaping } from '#shared/engine'
+import type { Distinguishability, SectionShaping, ShapedPiece } from '#shared/engine'
 import type { PieceTimeline } from '#shared/piece/types'
 import type { LengthUnit } from './stock'
 
@@ -156,6 +156,22 @@ export interface PlanPieceNumbers {
   sections: PlanSectionNumbers[]
   /** What the preview draws: the timeline a project would freeze, with each section's motif offset and shaping. */
   preview: { timeline: PieceTimeline; offsets: number[]; shaping: (SectionShaping | null)[] }
+  /** A shaped piece's counts for the size worked out (null for a rectangle). */
+  shape: PieceShapeNumbers | null
+}
+
+export interface PieceShapeNumbers {
+  /** The size these numbers are for. */
+  size: string
+  castOn: number
+  /** Fabric rows from the cast-on to the top, and the machine rows (the neck's two sides knit the top twice). */
+  height: number
+  machineRows: number
+  /** Needles the piece spans on the bed at its widest (what must fit the machine). */
+  widest: number
+  counts: ShapedPiece['counts']
+  /** Rows the sections give before they are fitted to the height (plain in slot A added above, or cut at the top). */
+  sectionRows: number
 }
 
 export interface PlanPiece extends PlanPieceInput {

@@ -1,0 +1,77 @@
+import { describe, expect, it } from 'vitest'
+import { estimateRowsYarn, gaugePer10cm, KnittingInputError } from '#shared/engine'
+import { compilePieceTimeline } from '#shared/piece/timeline'
+import type { PlanPieceContext } from '#shared/planner/planPiece'
+import { shapedKnittedRows, workShapedPiece } from '#shared/planner/shapedPiece'
+import type { PlanPieceInput } from '#shared/types/plan'
+import { frontSpec } from '../../support/shapeSpecs'
+
+const ctx = (overrides: Partial<PlanPieceContext> = {}): PlanPieceContext => ({
+  gauge: gaugePer10cm({ stitchesPer10cm: 30, rowsPer10cm: 40 }),
+  technique: 'together', passesPerColour: 2, floatLimit: 5,
+  yarns: [{ slot: 'A', name: 'Oat', hex: '#e8dcc0' }, { slot: 'B', name: 'Navy', hex: '#1c2a4a' }],
+  motifs: new Map([[7, { name: 'Checks', chart: ['x.', '.x'] }], [8, { name: 'Bars', chart: ['x.......'] }]]),
+  ...overrides,
+})
+const piece = (sections: PlanPieceInput['sections']): PlanPieceInput => ({
+  name: 'Front', copies: 1, targetWidth: 50, targetLength: 56, unit: 'cm', ease: 0, sections,
+})
+const welt = { kind: 'plain' as const, label: 'Welt', rows: 20, yarn: 'A' }
+const checks = { kind: 'motif' as const, motifId: 7, placement: 'centred' as const, chartRows: 40, main: 'A', contrast: 'B' }
+
+describe('workShapedPiece — the worked front (tests/unit/engine/shapePiece.test.ts) with a welt and a band of checks', () => {
+  const w = workShapedPiece(piece([welt, checks]), frontSpec, 'M', ctx())
+  const shape = w.timeline.shape!
+
+  it('casts on the shape\'s 150 and tops the sections up to the piece\'s height with plain A', () => {
+    expect(w.needles).toBe(150)
+    expect(w.shape).toMatchObject({ size: 'M', castOn: 150, sectionRows: 60 })
+    const height = w.shape!.height
+    expect(w.timeline.sections.map(s => [s.label, s.kind === 'plain' ? s.rows : s.chartRows])).toEqual([['Welt', 20], ['Checks', 40], ['Plain to the top', height - 60]])
+    expect(w.machineRows).toBe(shape.rows.length)
+    expect(w.shape!.widest).toBe(162) // the chest: 150 + 6 each side
+  })
+
+  it('knits the left of the neck on the same fabric rows (and yarns) as the right', () => {
+    const compiled = compilePieceTimeline(w.timeline)
+    const firstRight = shape.rows.findIndex(r => r.part === 'right')
+    const firstLeft = shape.rows.findIndex(r => r.part === 'left')
+    expect(shape.rows[firstLeft]!.row).toBe(shape.rows[firstRight]!.row)
+    expect(compiled.rows[firstLeft]).toEqual({ ...compiled.rows[firstRight]!, rowInSection: 0 })
+  })
+
+  it('counts the contrast by the real width of each row: 3 rows at 150, 24 at 152, 13 at 154, half of each in B', () => {
+    // Increases on rows 24 and 48 (every 24th row, 1-based) widen rows 23… and 47… (0-based).
+    // Checks rows 20–59: (3 × 150 + 24 × 152 + 13 × 154) / 2 = 6100 / 2 = 3050 stitches of B.
+    const compiled = compilePieceTimeline(w.timeline)
+    const rows = shapedKnittedRows(w.timeline, compiled, w.offsets)
+    const e = estimateRowsYarn({ rows, swatch: { stitches: 1200, grams: 10 }, needlePitchMm: 4.5, yarns: { A: { metresPer100g: 400 }, B: { metresPer100g: 400 } } })
+    expect(e.yarns.find(y => y.yarn === 'B')!.stitches).toBe(3050)
+    const knitted = rows.reduce((n, r) => n + r.knitTo - r.knitFrom, 0)
+    expect(e.yarns.reduce((n, y) => n + y.stitches, 0)).toBe(knitted)
+  })
+
+  it('checks floats at the real width of each row', () => {
+    expect(w.sections[1]!.maxFloat).toEqual([1, 1])
+    const bars = workShapedPiece(piece([welt, { ...checks, motifId: 8 }]), frontSpec, 'M', ctx())
+    expect(bars.sections[1]!.maxFloat).toEqual([1, 7])
+  })
+
+  it('cuts sections that run past the top', () => {
+    const tall = workShapedPiece(piece([welt, { ...checks, chartRows: 1000 }]), frontSpec, 'M', ctx())
+    expect(tall.timeline.sections.map(s => s.label)).toEqual(['Welt', 'Checks'])
+    expect(tall.shape!.sectionRows).toBe(1020)
+  })
+
+  it('refuses a shaping section, a machine feeding colours one by one, and a bad spec, by field', () => {
+    const refusal = (f: () => unknown) => {
+      try { f() }
+      catch (e) { return e instanceof KnittingInputError ? e.field : 'not a KnittingInputError' }
+      return 'no refusal'
+    }
+    expect(refusal(() => workShapedPiece(piece([welt, { kind: 'shaping', change: 'increase', stitchesEachSide: 2, rows: 10 }]), frontSpec, 'M', ctx())))
+      .toBe('sections[1].kind')
+    expect(refusal(() => workShapedPiece(piece([welt]), frontSpec, 'M', ctx({ technique: 'colour-by-colour' })))).toBe('shape')
+    expect(refusal(() => workShapedPiece(piece([welt]), { ...frontSpec, neck: { width: 60, depth: 8, shape: 'round' } }, 'M', ctx()))).toBe('shape.neck.width')
+  })
+})
