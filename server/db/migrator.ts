@@ -7,6 +7,7 @@ import * as m0004 from './migrations/0004-motif-library'
 import * as m0005 from './migrations/0005-planner'
 import * as m0006 from './migrations/0006-sessions-and-mail'
 import * as m0007 from './migrations/0007-edit-versions'
+import * as m0008 from './migrations/0008-sizes-and-shapes'
 
 // Listed by hand (no file glob) so the bundled server and scripts find the same set.
 // Append new migrations; never edit one that has shipped.
@@ -18,6 +19,7 @@ const migrations = [
   { name: '0005-planner', ...m0005 },
   { name: '0006-sessions-and-mail', ...m0006 },
   { name: '0007-edit-versions', ...m0007 },
+  { name: '0008-sizes-and-shapes', ...m0008 },
 ]
 
 export function createMigrator(sequelize: Sequelize) {

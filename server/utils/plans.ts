@@ -1,8 +1,10 @@
 import type { H3Event } from 'h3'
 import type { Transaction } from 'sequelize'
-import { distinguishable, estimateYarn, KnittingInputError, type YarnEstimate } from '#shared/engine'
-import { pieceTimelinePlan } from '#shared/piece/timeline'
-import { motifSectionName, planSlotYarns, workPlanPiece, type PlanMotif, type WorkedPlanPiece } from '#shared/planner/planPiece'
+import { distinguishable, estimateRowsYarn, estimateYarn, KnittingInputError, type YarnEstimate } from '#shared/engine'
+import { compilePieceTimeline, pieceTimelinePlan } from '#shared/piece/timeline'
+import { motifSectionName, planSlotYarns, type PlanMotif, type WorkedPlanPiece } from '#shared/planner/planPiece'
+import { shapedKnittedRows, shapeSizeCounts } from '#shared/planner/shapedPiece'
+import { workPiece } from '#shared/planner/workPiece'
 import { copySuffix } from '#shared/piece/copies'
 import { nameWithSuffix } from '#shared/text/nameWithSuffix'
 import type { PlanDetail, PlanPerson, PlanPiece as PlanPieceView, PlanSummary, PlanWarning, PlanYarnNeed } from '#shared/types/plan'
@@ -35,7 +37,7 @@ const sortedPieces = (plan: Plan) => [...(plan.pieces ?? [])].sort((a, b) => a.p
 export function planSummary(plan: Plan): PlanSummary {
   return {
     id: plan.id, studioId: plan.studioId, name: plan.name, machineId: plan.machineId, swatchId: plan.swatchId,
-    yarns: plan.yarns, floatLimit: plan.floatLimit, published: !!plan.published, pieceCount: plan.pieces?.length ?? 0,
+    yarns: plan.yarns, sizes: plan.sizes, floatLimit: plan.floatLimit, published: !!plan.published, pieceCount: plan.pieces?.length ?? 0,
     createdBy: person(plan.creator), updatedBy: person(plan.editor), createdAt: iso(plan.createdAt), updatedAt: iso(plan.updatedAt),
   }
 }
@@ -120,16 +122,17 @@ async function planInputs(plan: Plan, viewer: StudioRole) {
 
 type Inputs = Awaited<ReturnType<typeof planInputs>>
 
-function workPieces(plan: Plan, inp: Inputs, warnings: PlanWarning[]) {
+/** Every piece worked out for the size at `size` in the plan's sizes. */
+function workPieces(plan: Plan, inp: Inputs, warnings: PlanWarning[], size: number) {
   if (!inp.swatch) warnings.push({ kind: 'no-gauge', message: 'Choose a swatch: needles and rows come from its gauge' })
   const gauge = inp.swatch ? swatchEngineGauge(inp.swatch) : null
   return inp.pieces.map((p, i): WorkedPlanPiece | null => {
     if (!gauge) return null
     try {
-      return workPlanPiece(p, {
+      return workPiece(p, {
         gauge, technique: inp.machine?.technique ?? 'together', passesPerColour: inp.machine?.passesPerColour ?? 2,
         yarns: inp.slots.map(s => ({ slot: s.slot, name: s.yarn.name, hex: s.yarn.hex })), motifs: inp.motifMap, floatLimit: plan.floatLimit,
-      })
+      }, { index: size, name: plan.sizes[size]! })
     }
     catch (e) {
       if (!(e instanceof KnittingInputError)) throw e
@@ -145,7 +148,7 @@ function pieceWarnings(plan: Plan, inp: Inputs, worked: (WorkedPlanPiece | null)
   worked.forEach((w, i) => {
     const piece = inp.pieces[i]!
     if (!w) return
-    const widest = Math.max(w.needles, ...w.sections.map(s => s.shaping?.stitchesAfter ?? 0))
+    const widest = w.shape?.widest ?? Math.max(w.needles, ...w.sections.map(s => s.shaping?.stitchesAfter ?? 0))
     if (inp.machine && widest > inp.machine.needles) {
       warnings.push({ kind: 'needles-over-bed', piece: i, message: `${piece.name}: ${widest} needles, ${inp.machine.name} has ${inp.machine.needles}` })
     }
@@ -191,20 +194,26 @@ function planEstimate(inp: Inputs, worked: (WorkedPlanPiece | null)[], warnings:
   if (worked.some(w => !w)) return null
   const grist = Object.fromEntries(inp.slots.map(s => [s.slot, { metresPer100g: Number(s.yarn.metresPer100g) }]))
   const totals = new Map<string, { grams: number; metres: number; floatGrams: number }>()
-  let model = ''
+  const models = { rectangle: '', shaped: '' }
+  const common = { swatch: { stitches: sw.stitches * sw.rows, grams: Number(sw.grams) }, needlePitchMm: Number(inp.machine!.needlePitchMm), yarns: grist }
+  const addUp = (e: YarnEstimate, copies: number, kind: keyof typeof models) => {
+    models[kind] = e.model
+    for (const y of e.yarns) {
+      const t = totals.get(y.yarn) ?? { grams: 0, metres: 0, floatGrams: 0 }
+      totals.set(y.yarn, { grams: t.grams + y.grams * copies, metres: t.metres + y.metres * copies, floatGrams: t.floatGrams + y.floatGrams * copies })
+    }
+  }
+  let legacyShaping = false
   worked.forEach((w, i) => {
     const copies = inp.pieces[i]!.copies
+    if (w!.timeline.shape) {
+      addUp(estimateRowsYarn({ ...common, rows: shapedKnittedRows(w!.timeline, compilePieceTimeline(w!.timeline), w!.offsets) }), copies, 'shaped')
+      return
+    }
+    legacyShaping ||= w!.shaping.some(Boolean)
     const engine = pieceTimelinePlan(w!.timeline)
     engine.sections.forEach((section, j) => {
-      const e: YarnEstimate = estimateYarn({
-        plan: { ...engine, sections: [section] }, placement: { needles: w!.needles, offset: w!.offsets[j] },
-        swatch: { stitches: sw.stitches * sw.rows, grams: Number(sw.grams) }, needlePitchMm: Number(inp.machine!.needlePitchMm), yarns: grist,
-      })
-      model = e.model
-      for (const y of e.yarns) {
-        const t = totals.get(y.yarn) ?? { grams: 0, metres: 0, floatGrams: 0 }
-        totals.set(y.yarn, { grams: t.grams + y.grams * copies, metres: t.metres + y.metres * copies, floatGrams: t.floatGrams + y.floatGrams * copies })
-      }
+      addUp(estimateYarn({ ...common, plan: { ...engine, sections: [section] }, placement: { needles: w!.needles, offset: w!.offsets[j] } }), copies, 'rectangle')
     })
   })
   const yarns: PlanYarnNeed[] = inp.slots.filter(s => totals.has(s.slot)).map((s) => {
@@ -214,13 +223,23 @@ function planEstimate(inp: Inputs, worked: (WorkedPlanPiece | null)[], warnings:
       warnings.push({ kind: 'low-stock', message: `${s.yarn.name} (slot ${s.slot}): about ${Math.ceil(t.grams)} g needed, ${onHand} g on hand` })
     return { slot: s.slot, yarnId: s.yarnId, name: s.yarn.name, hex: s.yarn.hex, ...t, gramsOnHand: onHand, low: t.grams > onHand }
   })
-  return { model: `${model} Shaping rows are counted at the cast-on width; each piece is counted once per copy.`, yarns }
+  // The shaped model's words cover a rectangle too (a row at its real width is the cast-on width).
+  const words = [
+    models.shaped || models.rectangle,
+    ...(models.shaped && models.rectangle ? ['Rectangle pieces keep their cast-on width on every row.'] : []),
+    ...(legacyShaping ? ['Rows of a shaping section are counted at the cast-on width.'] : []),
+    'Each piece is counted once per copy.',
+  ]
+  return { model: words.join(' '), yarns }
 }
 
-export async function planDetail(plan: Plan, viewer: StudioRole): Promise<PlanDetail> {
+/** The plan worked out for the size at `size` (0 when out of range: the plan may have lost sizes since). */
+export async function planDetail(plan: Plan, viewer: StudioRole, size = 0): Promise<PlanDetail> {
   const inp = await planInputs(plan, viewer)
   const warnings: PlanWarning[] = []
-  const worked = workPieces(plan, inp, warnings)
+  if (size >= plan.sizes.length) size = 0
+  const worked = workPieces(plan, inp, warnings, size)
+  const gauge = inp.swatch ? swatchEngineGauge(inp.swatch) : null
   pieceWarnings(plan, inp, worked, warnings)
   const estimate = planEstimate(inp, worked, warnings)
   const main = inp.slots.find(s => s.slot === 'A')
@@ -236,6 +255,8 @@ export async function planDetail(plan: Plan, viewer: StudioRole): Promise<PlanDe
       unit: p.unit,
       ease: Number(p.ease),
       sections: p.sections,
+      shape: p.shape,
+      sizeCounts: p.shape && gauge ? shapeSizeCounts(p.shape, plan.sizes, p.unit, gauge) : null,
       numbers: w
         ? {
             needles: w.needles,
@@ -245,12 +266,14 @@ export async function planDetail(plan: Plan, viewer: StudioRole): Promise<PlanDe
             colourChanges: w.colourChanges,
             sections: w.sections,
             preview: { timeline: w.timeline, offsets: w.offsets, shaping: w.shaping },
+            shape: w.shape,
           }
         : null,
     }
   })
   return {
     ...planSummary(plan),
+    size,
     version: plan.version,
     notes: plan.notes,
     pieces,
@@ -277,7 +300,9 @@ export async function startProjectFromPlan(plan: Plan, body: PlanProjectBody, kn
   // Frozen as the one starting it sees the plan: a knitter's project never holds a draft's name.
   const inp = await planInputs(plan, role)
   const warnings: PlanWarning[] = []
-  const worked = workPieces(plan, inp, warnings)
+  const size = body.size ?? 0
+  if (size >= plan.sizes.length) throw fieldError('size', `the plan has no size ${size} (it has ${plan.sizes.length}: ${plan.sizes.join(', ')})`)
+  const worked = workPieces(plan, inp, warnings, size)
   const chosen = body.pieces ?? inp.pieces.map((_, i) => i)
   const bad = chosen.find(i => i >= inp.pieces.length)
   if (bad !== undefined) throw fieldError('pieces', `the plan has no piece ${bad} (it has ${inp.pieces.length})`)

@@ -26,7 +26,7 @@ export interface RowNeedles {
 }
 
 /** One entry per row of the piece, in its knitting order. */
-export function shapedNeedles(piece: ShapedPiece): RowNeedles[] {
+export function shapedNeedles(piece: Pick<ShapedPiece, 'castOn' | 'rows'>): RowNeedles[] {
   let from = 0
   let to = piece.castOn
   let leftHalf: [number, number] | null = null

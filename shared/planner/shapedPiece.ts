@@ -11,11 +11,12 @@
 //   the needles that knit it (held needles out), measured like analyseFloats.
 
 import { analyseFloats, chartFromRows, KnittingInputError, shapedNeedles, shapePiece } from '#shared/engine'
-import type { Chart, CompiledPlan, KnittedRow, RowFloats, RowNeedles, ShapeSpec } from '#shared/engine'
+import type { Chart, CompiledPlan, Gauge, KnittedRow, RowFloats, RowNeedles, ShapedPiece, ShapeSpec } from '#shared/engine'
 import { compilePieceTimeline } from '#shared/piece/timeline'
 import type { PieceSection, PieceTimeline } from '#shared/piece/types'
-import type { PieceShapeNumbers, PlanPieceInput } from '#shared/types/plan'
+import type { PieceShape, PieceShapeNumbers, PieceSizeCounts, PlanPieceInput } from '#shared/types/plan'
 import { planSlotYarns, workSections, type PlanPieceContext, type WorkedPlanPiece } from './planPiece'
+import { sizedShapeSpec } from './sizes'
 
 const mod = (n: number, w: number) => ((n % w) + w) % w
 
@@ -106,11 +107,7 @@ export function workShapedPiece(piece: PlanPieceInput, spec: ShapeSpec, size: st
     return { ...n, maxFloat: f, maxFloatMm: [f[0] * ctx.gauge.stitchWidthMm, f[1] * ctx.gauge.stitchWidthMm] as [number, number] }
   })
 
-  const from = Math.min(...needles.map(n => n.from))
-  const to = Math.max(...needles.map(n => n.to))
-  const shape: PieceShapeNumbers = {
-    size, castOn, height, machineRows: compiled.rows.length, widest: to - from, counts: shaped.counts, sectionRows,
-  }
+  const shape: PieceShapeNumbers = { ...sizeCounts(shaped, size, needles), sectionRows }
   return {
     needles: castOn,
     targetRows: height,
@@ -123,4 +120,24 @@ export function workShapedPiece(piece: PlanPieceInput, spec: ShapeSpec, size: st
     colourChanges: compiled.changes.length,
     shape,
   }
+}
+
+function sizeCounts(shaped: ShapedPiece, size: string, needles = shapedNeedles(shaped)): PieceSizeCounts {
+  const from = Math.min(...needles.map(n => n.from))
+  const to = Math.max(...needles.map(n => n.to))
+  return {
+    size, castOn: shaped.castOn, height: shaped.rows.reduce((n, r) => Math.max(n, r.row + 1), 0), machineRows: shaped.rows.length,
+    widest: to - from, counts: shaped.counts,
+  }
+}
+
+/** The shape's counts in every size (cheap: no sections, no floats); a size the shape refuses says why. */
+export function shapeSizeCounts(shape: PieceShape, sizes: string[], unit: 'cm' | 'in', gauge: Gauge): (PieceSizeCounts | { size: string; error: string })[] {
+  return sizes.map((size, index) => {
+    try { return sizeCounts(shapePiece(sizedShapeSpec(shape, index, unit), gauge), size) }
+    catch (e) {
+      if (!(e instanceof KnittingInputError)) throw e
+      return { size, error: e.message }
+    }
+  })
 }

@@ -160,7 +160,8 @@ export interface PlanPieceNumbers {
   shape: PieceShapeNumbers | null
 }
 
-export interface PieceShapeNumbers {
+/** A shaped piece's counts in one size (the print sheet lists them size by size). */
+export interface PieceSizeCounts {
   /** The size these numbers are for. */
   size: string
   castOn: number
@@ -170,6 +171,9 @@ export interface PieceShapeNumbers {
   /** Needles the piece spans on the bed at its widest (what must fit the machine). */
   widest: number
   counts: ShapedPiece['counts']
+}
+
+export interface PieceShapeNumbers extends PieceSizeCounts {
   /** Rows the sections give before they are fitted to the height (plain in slot A added above, or cut at the top). */
   sectionRows: number
 }
@@ -179,6 +183,8 @@ export interface PlanPiece extends PlanPieceInput {
   position: number
   /** Null when the plan has no swatch or the piece cannot be worked out (see warnings). */
   numbers: PlanPieceNumbers | null
+  /** A shaped piece's counts in every size, in the plan's size order (a size that cannot be worked out says why); null for a rectangle or without a swatch. */
+  sizeCounts: (PieceSizeCounts | { size: string; error: string })[] | null
 }
 
 export interface PlanYarnNeed {
@@ -195,6 +201,8 @@ export interface PlanYarnNeed {
 }
 
 export interface PlanDetail extends PlanSummary {
+  /** The size (index into `sizes`) the pieces' numbers, warnings and estimate are worked out for: `?size=` of the request, 0 by default. */
+  size: number
   /**
    * Bumped by every change. Send it back with a change (`version` in the PATCH body or
    * `If-Match: "<version>"`): if the plan has moved on since, the answer is a 409 whose

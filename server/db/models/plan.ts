@@ -1,5 +1,5 @@
 import { DataTypes, Model, type CreationOptional, type InferAttributes, type InferCreationAttributes, type NonAttribute, type Sequelize } from 'sequelize'
-import type { PlanSection, PlanYarnSlot } from '#shared/types/plan'
+import type { PieceShape, PlanSection, PlanYarnSlot } from '#shared/types/plan'
 import type { LengthUnit } from '#shared/types/stock'
 import { parsedJson } from './json'
 import type { User } from './user'
@@ -11,6 +11,8 @@ export class Plan extends Model<InferAttributes<Plan>, InferCreationAttributes<P
   declare machineId: number | null
   declare swatchId: number | null
   declare yarns: PlanYarnSlot[]
+  /** Size names in order (migration 0008 made every older plan 'One size'). */
+  declare sizes: CreationOptional<string[]>
   declare floatLimit: CreationOptional<number>
   declare published: CreationOptional<boolean>
   declare notes: CreationOptional<string>
@@ -35,6 +37,10 @@ export class Plan extends Model<InferAttributes<Plan>, InferCreationAttributes<P
         type: DataTypes.JSON, allowNull: false,
         get() { return parsedJson<PlanYarnSlot[]>(this.getDataValue('yarns')) ?? [] },
       },
+      sizes: {
+        type: DataTypes.JSON, allowNull: false, defaultValue: ['One size'],
+        get() { return parsedJson<string[] | null>(this.getDataValue('sizes')) ?? ['One size'] },
+      },
       floatLimit: { type: DataTypes.TINYINT.UNSIGNED, allowNull: false, defaultValue: 5 },
       published: { type: DataTypes.BOOLEAN, allowNull: false, defaultValue: false },
       notes: { type: DataTypes.TEXT, allowNull: false, defaultValue: '' },
@@ -58,6 +64,8 @@ export class PlanPiece extends Model<InferAttributes<PlanPiece>, InferCreationAt
   declare unit: LengthUnit
   declare ease: number
   declare sections: PlanSection[]
+  /** Null: a rectangle. */
+  declare shape: CreationOptional<PieceShape | null>
   declare createdAt: CreationOptional<Date>
   declare updatedAt: CreationOptional<Date>
 
@@ -75,6 +83,10 @@ export class PlanPiece extends Model<InferAttributes<PlanPiece>, InferCreationAt
       sections: {
         type: DataTypes.JSON, allowNull: false,
         get() { return parsedJson<PlanSection[]>(this.getDataValue('sections')) },
+      },
+      shape: {
+        type: DataTypes.JSON, allowNull: true, defaultValue: null,
+        get() { return parsedJson<PieceShape | null>(this.getDataValue('shape')) ?? null },
       },
       createdAt: DataTypes.DATE(3),
       updatedAt: DataTypes.DATE(3),

@@ -2,7 +2,7 @@ import { Hash } from '@adonisjs/hash'
 import { Scrypt } from '@adonisjs/hash/drivers/scrypt'
 import type { Sequelize, Transaction } from 'sequelize'
 import { borderedMotifTimeline, slotYarns } from '#shared/piece/timeline'
-import type { PlanPieceInput } from '#shared/types/plan'
+import type { PieceShape, PlanPieceInput } from '#shared/types/plan'
 import { Machine, Membership, Motif, Piece, Plan, PlanPiece, Project, RowEvent, Studio, Swatch, User, Yarn } from '../models'
 import { motifRecord } from '../motifs'
 import { insertProject } from '../projects'
@@ -197,31 +197,53 @@ async function seedPlans(stock: DemoStock, designer: User, transaction: Transact
     notes: 'Marsh wave over the middle 24 stitches; washed and dried flat before measuring.',
   }, { transaction })
   const wave = stock.motifs['Marsh wave']!.id
-  const body = (name: string): PlanPieceInput => ({
-    name, copies: 1, targetWidth: 50, targetLength: 60, unit: 'cm', ease: 4,
+  // Four sizes, measured flat on the finished piece (invented for the demo). The chest carries
+  // 2 cm of ease over the table's figure; the back's neck is the stitches its shoulders leave.
+  const bodyShape = (neck: PieceShape['neck']): PieceShape => ({
+    kind: 'body', carriageStart: 'right', armhole: true, shoulder: 'cast-off', neck, cap: false,
+    measurements: {
+      hemWidth: [42, 47, 52, 57], width: [44, 49, 54, 59], lengthToUnderarm: [38, 39, 40, 41],
+      armholeCastOff: [2.5, 3, 3, 3.5], armholeDecrease: [1.5, 2, 2.5, 3], armholeDepth: [19, 20, 21, 22],
+      shoulderWidth: [10, 11, 12, 13], shoulderDrop: [1.5, 1.5, 2, 2],
+      ...(neck ? { neckWidth: [16, 17, 17, 18], neckDepth: [8, 8, 8.5, 8.5] } : {}),
+    },
+    ease: { width: 2 },
+  })
+  const body = (name: string, neck: PieceShape['neck']): PlanPieceInput => ({
+    name, copies: 1, targetWidth: 42, targetLength: 57, unit: 'cm', ease: 0, shape: bodyShape(neck),
     sections: [
       { kind: 'cast-on-note', text: 'Cast on with waste yarn, then a row of cream.' },
       { kind: 'plain', label: 'Welt', rows: 30, yarn: 'A', stitchSize: '4' },
       { kind: 'setting-note', text: 'Stitch size back to 6.' },
-      { kind: 'motif', motifId: wave, placement: 'centred', lengthCm: 48, main: 'A', contrast: 'B' },
-      { kind: 'plain', label: 'Shoulder band', rows: 20, yarn: 'A' },
+      { kind: 'motif', motifId: wave, placement: 'centred', lengthCm: 44, main: 'A', contrast: 'B' },
       { kind: 'cast-off-note', text: 'Cast off loosely over the gate pegs.' },
     ],
   })
   const sleeve: PlanPieceInput = {
-    name: 'Sleeve', copies: 2, targetWidth: 22, targetLength: 45, unit: 'cm', ease: 0,
+    name: 'Sleeve', copies: 2, targetWidth: 20, targetLength: 56, unit: 'cm', ease: 0,
+    shape: {
+      kind: 'sleeve', carriageStart: 'right', armhole: false, shoulder: null, neck: null, cap: true,
+      measurements: {
+        hemWidth: [20, 21, 22, 23], width: [32, 34, 36, 38], lengthToUnderarm: [44, 45, 46, 46],
+        capCastOff: [2.5, 3, 3, 3.5], capHeight: [12, 12.5, 13, 13.5], capTopWidth: [8, 8, 9, 9],
+      },
+      ease: {},
+    },
     sections: [
       { kind: 'plain', label: 'Cuff', rows: 30, yarn: 'A', stitchSize: '4' },
-      { kind: 'shaping', change: 'increase', stitchesEachSide: 20, rows: 120 },
-      { kind: 'motif', motifId: wave, placement: 'centred', chartRows: 24, main: 'A', contrast: 'B' },
-      { kind: 'plain', label: 'Top', rows: 16, yarn: 'A' },
-      { kind: 'cast-off-note', text: 'Cast off loosely.' },
+      { kind: 'setting-note', text: 'Stitch size back to 6.' },
+      { kind: 'plain', label: 'Lower sleeve', lengthCm: 30, yarn: 'A' },
+      { kind: 'motif', motifId: wave, placement: 'centred', chartRows: 48, main: 'A', contrast: 'B' },
+      { kind: 'cast-off-note', text: 'Cast off the top loosely.' },
     ],
   }
   const plans = [
-    { name: 'Marsh wave jumper plan', published: true, notes: 'Cream body, ink blue waves; sleeves twice.', pieces: [body('Back'), body('Front'), sleeve] },
     {
-      name: 'Pebble check scarf (draft)', published: false, notes: 'Still choosing the length.',
+      name: 'Marsh wave jumper plan', published: true, sizes: ['S', 'M', 'L', 'XL'], notes: 'Cream body, ink blue waves; sleeves twice.',
+      pieces: [body('Back', null), body('Front', 'round'), sleeve],
+    },
+    {
+      name: 'Pebble check scarf (draft)', published: false, sizes: ['One size'], notes: 'Still choosing the length.',
       pieces: [{ name: 'Scarf', copies: 1, targetWidth: 25, targetLength: 150, unit: 'cm' as const, ease: 0, sections: [
         { kind: 'motif' as const, motifId: stock.motifs['Pebble check']!.id, placement: 'centred' as const, lengthCm: 150, main: 'A', contrast: 'B' },
       ] }],
@@ -229,7 +251,8 @@ async function seedPlans(stock: DemoStock, designer: User, transaction: Transact
   ]
   for (const p of plans) {
     const plan = await Plan.create({
-      studioId: stock.studio.id, name: p.name, machineId: standard!.id, swatchId: swatch.id, floatLimit: 5, published: p.published, notes: p.notes,
+      studioId: stock.studio.id, name: p.name, machineId: standard!.id, swatchId: swatch.id, floatLimit: 5, published: p.published,
+      sizes: p.sizes, notes: p.notes,
       yarns: [{ slot: 'A', yarnId: cream.id }, { slot: 'B', yarnId: ink.id }], createdBy: designer.id, updatedBy: designer.id,
     }, { transaction })
     for (const [i, piece] of p.pieces.entries()) await PlanPiece.create({ planId: plan.id, position: i + 1, ...piece }, { transaction })
