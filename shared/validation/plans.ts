@@ -100,5 +100,12 @@ export const planProjectBody = z.object({
   name: nameSchema.optional(),
   pieces: z.array(count(0, 11), 'must be a list of piece indexes').min(1, 'at least one piece').optional(),
   notes: notes.optional(),
+  /** Which of the plan's sizes to knit (index into its sizes; the first by default). */
+  size: count(0, 11).optional(),
 })
 export type PlanProjectBody = z.infer<typeof planProjectBody>
+
+/** GET /api/plans/:id?size=k: the size (index into the plan's sizes) the numbers are worked out for. */
+export const planSizeQuery = z.object({
+  size: z.preprocess(v => (typeof v === 'string' && /^\d{1,2}$/.test(v) ? Number(v) : v), count(0, 11)).optional(),
+})

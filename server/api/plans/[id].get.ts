@@ -1,10 +1,13 @@
 import { idParams } from '#shared/validation/common'
+import { planSizeQuery } from '#shared/validation/plans'
 
-// The plan with the engine's numbers per piece, warnings and the yarn estimate against stock.
+// The plan with the engine's numbers per piece for one of its sizes (`?size=`, the first by
+// default), warnings and the yarn estimate against stock.
 export default defineEventHandler(async (event) => {
   await requireUser(event)
   const { id } = paramsValid(event, idParams)
   const { plan, role } = await requirePlan(event, id)
+  const { size } = queryValid(event, planSizeQuery)
   setVersionTag(event, plan.version)
-  return planDetail(plan, role)
+  return planDetail(plan, role, size)
 })
