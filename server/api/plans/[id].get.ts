@@ -8,6 +8,7 @@ export default defineEventHandler(async (event) => {
   const { id } = paramsValid(event, idParams)
   const { plan, role } = await requirePlan(event, id)
   const { size } = queryValid(event, planSizeQuery)
+  if (size !== undefined && size >= plan.sizes.length) throw fieldError('size', `the plan has no size ${size} (it has ${plan.sizes.length}: ${plan.sizes.join(', ')})`)
   setVersionTag(event, plan.version)
   return planDetail(plan, role, size)
 })
