@@ -8,8 +8,13 @@
 //   increases carry the repeat on outwards, as the patterning would.
 // - Shaping changes one stitch each side on the last row of each step (every 7th row ×4: rows
 //   7, 14, 21, 28 of the section); the width holds from there on.
+// - A shaped piece (timeline.shape) draws each fabric row on the needles its part holds after
+//   that row's shaping (shapedNeedles; both sides of the neck at their height), the motif fixed
+//   to the bed: needle n knits column (offset + n) mod width, the cast-on's leftmost being 0.
 
+import { compilePlan, shapedNeedles } from '#shared/engine'
 import type { SectionShaping } from '#shared/engine'
+import { pieceTimelinePlan } from '#shared/piece/timeline'
 import type { PieceTimeline } from '#shared/piece/types'
 
 export interface PiecePicture {
@@ -44,6 +49,7 @@ export function rowWidths(timeline: PieceTimeline, shaping: (SectionShaping | nu
 }
 
 export function piecePicture(timeline: PieceTimeline, offsets: number[], shaping: (SectionShaping | null)[]): PiecePicture {
+  if (timeline.shape) return shapedPicture(timeline, offsets)
   const widths = rowWidths(timeline, shaping)
   const width = Math.max(timeline.needles, ...widths)
   const height = widths.length
@@ -71,6 +77,35 @@ export function piecePicture(timeline: PieceTimeline, offsets: number[], shaping
         cells[line + i] = chartLine[col] === 'x' ? contrast : main
       }
     }
+  })
+  return { width, height, slots, cells }
+}
+
+function shapedPicture(timeline: PieceTimeline, offsets: number[]): PiecePicture {
+  const shape = timeline.shape!
+  const needles = shapedNeedles(shape)
+  const fabric = compilePlan(pieceTimelinePlan(timeline)).rows
+  const left = Math.min(0, ...needles.map(n => n.from))
+  const width = Math.max(timeline.needles, ...needles.map(n => n.to)) - left
+  const height = fabric.length
+  const slots = timeline.yarns.map(y => y.slot)
+  const colour = new Map(slots.map((s, i) => [s, i + 1]))
+  const cells = new Uint8Array(width * height)
+  shape.rows.forEach((r, i) => {
+    const n = needles[i]!
+    const f = fabric[r.row]
+    if (!f) return
+    const s = timeline.sections[f.section]!
+    const line = r.row * width - left
+    if (s.kind === 'plain' || f.chartRow === null) {
+      cells.fill(colour.get(f.yarns[0]!) ?? 0, line + n.from, line + n.to)
+      return
+    }
+    const chartLine = s.chart[f.chartRow]!
+    const cw = chartLine.length
+    const main = colour.get(s.main) ?? 0
+    const contrast = colour.get(s.contrast) ?? 0
+    for (let k = n.from; k < n.to; k++) cells[line + k] = chartLine[(((offsets[f.section] ?? 0) + k) % cw + cw) % cw] === 'x' ? contrast : main
   })
   return { width, height, slots, cells }
 }

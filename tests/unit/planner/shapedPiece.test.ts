@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest'
 import { estimateRowsYarn, gaugePer10cm, KnittingInputError } from '#shared/engine'
 import { compilePieceTimeline } from '#shared/piece/timeline'
+import { piecePicture } from '#shared/planner/piecePicture'
+import { sectionRows } from '#shared/planner/sectionRows'
 import type { PlanPieceContext } from '#shared/planner/planPiece'
 import { shapedKnittedRows, workShapedPiece } from '#shared/planner/shapedPiece'
 import type { PlanPieceInput } from '#shared/types/plan'
@@ -45,10 +47,24 @@ describe('workShapedPiece — the worked front (tests/unit/engine/shapePiece.tes
     // Checks rows 20–59: (3 × 150 + 24 × 152 + 13 × 154) / 2 = 6100 / 2 = 3050 stitches of B.
     const compiled = compilePieceTimeline(w.timeline)
     const rows = shapedKnittedRows(w.timeline, compiled, w.offsets)
-    const e = estimateRowsYarn({ rows, swatch: { stitches: 1200, grams: 10 }, needlePitchMm: 4.5, yarns: { A: { metresPer100g: 400 }, B: { metresPer100g: 400 } } })
+    const yarns = { A: { metresPer100g: 400 }, B: { metresPer100g: 400 } }
+    const e = estimateRowsYarn({ rows, swatch: { stitches: 1200, grams: 10 }, needlePitchMm: 4.5, yarns })
     expect(e.yarns.find(y => y.yarn === 'B')!.stitches).toBe(3050)
     const knitted = rows.reduce((n, r) => n + r.knitTo - r.knitFrom, 0)
     expect(e.yarns.reduce((n, y) => n + y.stitches, 0)).toBe(knitted)
+  })
+
+  it('the preview lists the top twice, once for each side of the neck, in knitting order', () => {
+    const compiled = compilePieceTimeline(w.timeline)
+    const split = shape.rows.findIndex(r => r.part === 'right')
+    const left = shape.rows.findIndex(r => r.part === 'left')
+    expect(sectionRows(w.timeline, compiled).map(r => [r.label, r.part ?? 'whole', r.from, r.to])).toEqual([
+      ['Welt', 'whole', 1, 20],
+      ['Checks', 'whole', 21, 60],
+      ['Plain to the top', 'whole', 61, split],
+      ['Plain to the top', 'right', split + 1, left],
+      ['Plain to the top', 'left', left + 1, shape.rows.length],
+    ])
   })
 
   it('checks floats at the real width of each row', () => {
@@ -73,5 +89,27 @@ describe('workShapedPiece — the worked front (tests/unit/engine/shapePiece.tes
       .toBe('sections[1].kind')
     expect(refusal(() => workShapedPiece(piece([welt]), frontSpec, 'M', ctx({ technique: 'colour-by-colour' })))).toBe('shape')
     expect(refusal(() => workShapedPiece(piece([welt]), { ...frontSpec, neck: { width: 60, depth: 8, shape: 'round' } }, 'M', ctx()))).toBe('shape.neck.width')
+  })
+})
+
+describe('piecePicture of a shaped piece', () => {
+  it('draws the worked front: 150 at the cast-on, 162 at the chest, the neck open between the two sides at the top', () => {
+    const w = workShapedPiece(piece([welt, checks]), frontSpec, 'M', ctx())
+    const p = piecePicture(w.timeline, w.offsets, w.shaping)
+    expect([p.width, p.height]).toEqual([162, w.shape!.height])
+    const across = (row: number) => Array.from(p.cells.subarray(row * p.width, (row + 1) * p.width))
+    const filled = (row: number) => across(row).filter(c => c > 0).length
+    expect(filled(0)).toBe(150)
+    expect(across(0).slice(0, 6).every(c => c === 0)).toBe(true) // the chest's 6 extra needles each side are not cast on
+    expect(filled(w.shape!.counts.rowsToUnderarm - 1)).toBe(162)
+    // The checks start on row 20, fixed to the bed: needle n is contrast (slot B = 2) when (offset + n) is even.
+    const n = 10 // a needle of the cast-on; in the picture it sits 6 to the right
+    expect(across(20)[6 + n]).toBe((w.offsets[1]! + n) % 2 === 0 ? 2 : 1)
+    // Below the shoulder the neck's centre is open, the two sides knitted on either side of it.
+    const top = w.shape!.height - 3
+    const row = across(top)
+    expect(row[81]).toBe(0)
+    expect(filled(top)).toBeGreaterThan(0)
+    expect(row.slice(0, 81).filter(c => c > 0).length).toBe(row.slice(81).filter(c => c > 0).length)
   })
 })
