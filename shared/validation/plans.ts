@@ -1,6 +1,8 @@
 import { z } from 'zod'
 import { MAX_PLAN_ROWS } from '#shared/engine/rows'
 import { copySuffix, longestPieceName } from '#shared/piece/copies'
+import { shapeMeasurements, type ShapeMeasurement } from '#shared/types/plan'
+import { mayBeZero, PLAN_SIZES_MAX, SHAPE_EASE_MAX, SHAPE_VALUE_MAX, shapeNeeds, SIZE_NAME_MAX } from '#shared/types/pieceShape'
 import { count, editVersion, id, lengthUnit, nameSchema, notes, stored } from './common'
 
 // Plans: a create body carries studioId; a patch body is the same fields, all optional (studioId never moves).
@@ -46,6 +48,101 @@ export const planSectionSchema = z.discriminatedUnion('kind', [
   shapingSection,
 ], 'must be a section with a kind: plain, motif, shaping or a note')
 
+/**
+ * A plan's sizes, smallest first, in the designer's own names ("XS" … "3XL", "chest 86"):
+ * 1–12 of them, each 1–20 characters once trimmed, no two alike ignoring capitals ("m" and "M"
+ * would be the same size on a sheet).
+ */
+export const planSizes = z.array(
+  z.string('must be text').trim().min(1, 'is required').max(SIZE_NAME_MAX, `must be at most ${SIZE_NAME_MAX} characters`),
+  'must be a list of size names',
+).min(1, 'at least one size').max(PLAN_SIZES_MAX, `at most ${PLAN_SIZES_MAX} sizes`).superRefine((list, ctx) => {
+  const seen = new Map<string, number>()
+  list.forEach((name, i) => {
+    const key = name.toLowerCase()
+    const first = seen.get(key)
+    if (first === undefined) seen.set(key, i)
+    else ctx.addIssue({ code: 'custom', path: [i], message: `"${name}" is already size ${first + 1} ("${list[first]}"): each size needs its own name` })
+  })
+})
+/** The sizes of a plan created without any. */
+export const DEFAULT_PLAN_SIZES = ['One size']
+
+// A shaped piece (PieceShape): choices, then one value per size for each measurement they call for.
+const shapeValue = (key: ShapeMeasurement) => (mayBeZero.has(key)
+  ? z.number('must be a number').min(0, 'must be 0 or more')
+  : z.number('must be a number').positive('must be more than 0')).max(SHAPE_VALUE_MAX, `must be at most ${SHAPE_VALUE_MAX}`)
+const shapeValues = Object.fromEntries(shapeMeasurements.map(key => [key, z.array(shapeValue(key), 'must be a list with a number for each size')
+  .min(1, 'needs a number for each size').max(PLAN_SIZES_MAX, `at most ${PLAN_SIZES_MAX} numbers (one per size)`).optional()])) as
+  Record<ShapeMeasurement, z.ZodOptional<z.ZodArray<z.ZodNumber>>>
+const shapeEase = Object.fromEntries(shapeMeasurements.map(key => [key, z.number('must be a number')
+  .min(-SHAPE_EASE_MAX, `must be at least -${SHAPE_EASE_MAX}`).max(SHAPE_EASE_MAX, `must be at most ${SHAPE_EASE_MAX}`).optional()])) as
+  Record<ShapeMeasurement, z.ZodOptional<z.ZodNumber>>
+
+/** What a measurement belongs to, for the messages ("is needed for a neckline"). */
+const measurementFor: Record<ShapeMeasurement, string> = {
+  hemWidth: 'every shaped piece', width: 'every shaped piece', lengthToUnderarm: 'every shaped piece',
+  armholeCastOff: 'a set-in armhole', armholeDecrease: 'a set-in armhole', armholeDepth: 'a set-in armhole',
+  shoulderWidth: 'shaped shoulders', shoulderDrop: 'shaped shoulders',
+  neckWidth: 'a neckline', neckDepth: 'a neckline',
+  capCastOff: 'a sleeve cap', capHeight: 'a sleeve cap', capTopWidth: 'a sleeve cap',
+}
+
+export const pieceShapeSchema = z.object({
+  kind: z.enum(['body', 'sleeve'], 'must be "body" or "sleeve"'),
+  carriageStart: z.enum(['left', 'right'], 'must be "left" or "right"').default('right'),
+  armhole: z.boolean('must be true or false').default(false),
+  shoulder: z.enum(['cast-off', 'hold'], 'must be "cast-off", "hold" or null').nullable().default(null),
+  neck: z.enum(['round', 'v', 'square'], 'must be "round", "v", "square" or null').nullable().default(null),
+  cap: z.boolean('must be true or false').default(false),
+  measurements: z.object(shapeValues, 'must be the measurements, each a list with a number per size'),
+  ease: z.object(shapeEase, 'must be the ease of each measurement').default({}),
+}).superRefine((s, ctx) => {
+  // The kind decides the choices: a sleeve's top is its cap, a body's is armholes, shoulders and neck.
+  if (s.kind === 'sleeve') {
+    if (s.armhole) ctx.addIssue({ code: 'custom', path: ['armhole'], message: 'a sleeve has no armhole (give it a cap for a set-in sleeve)' })
+    if (s.shoulder) ctx.addIssue({ code: 'custom', path: ['shoulder'], message: 'a sleeve has no shoulders' })
+    if (s.neck) ctx.addIssue({ code: 'custom', path: ['neck'], message: 'a sleeve has no neckline' })
+  }
+  else if (s.cap) ctx.addIssue({ code: 'custom', path: ['cap'], message: 'a body has no cap (the cap is the top of a sleeve)' })
+  const { required, optional } = shapeNeeds(s)
+  for (const key of required) {
+    if (!s.measurements[key]) ctx.addIssue({ code: 'custom', path: ['measurements', key], message: `is needed for ${measurementFor[key]}` })
+  }
+  // A measurement the choices do not use would be kept and never knitted: refused, so the table is what the sheet shows.
+  for (const key of shapeMeasurements) {
+    if (required.includes(key) || optional.includes(key)) continue
+    for (const where of ['measurements', 'ease'] as const) {
+      if (s[where][key] !== undefined) ctx.addIssue({ code: 'custom', path: [where, key], message: `is not used by a piece without ${measurementFor[key]}` })
+    }
+  }
+})
+
+/**
+ * Each measurement of each shaped piece must have a number for every size of the plan. The
+ * schemas check it when one body carries both; for a patch carrying only one of them the
+ * route checks the other against the stored plan with this.
+ */
+export function shapeSizeIssues(pieces: { shape?: { measurements: Partial<Record<ShapeMeasurement, number[]>> } | null }[], sizes: string[]) {
+  const issues: { path: (string | number)[]; message: string }[] = []
+  pieces.forEach((piece, i) => {
+    for (const key of shapeMeasurements) {
+      const values = piece.shape?.measurements[key]
+      if (values && values.length !== sizes.length) {
+        issues.push({
+          path: ['pieces', i, 'shape', 'measurements', key],
+          message: `has ${values.length} number${values.length === 1 ? '' : 's'} but the plan has ${sizes.length} size${sizes.length === 1 ? '' : 's'} (${sizes.join(', ')})`,
+        })
+      }
+    }
+  })
+  return issues
+}
+const sizesMatchShapes = (plan: { pieces?: Parameters<typeof shapeSizeIssues>[0]; sizes?: string[] }, ctx: z.RefinementCtx) => {
+  if (!plan.pieces || !plan.sizes) return
+  for (const issue of shapeSizeIssues(plan.pieces, plan.sizes)) ctx.addIssue({ code: 'custom', ...issue })
+}
+
 export const planPieceSchema = z.object({
   name: nameSchema,
   copies: count(1, 10).default(1),
@@ -54,6 +151,7 @@ export const planPieceSchema = z.object({
   unit: lengthUnit.default('cm'),
   ease: z.number('must be a number').min(-100, 'must be at least -100').max(100, 'must be at most 100').default(0),
   sections: z.array(planSectionSchema, 'must be a list of sections').min(1, 'at least one section').max(100, 'at most 100 sections'),
+  shape: pieceShapeSchema.nullable().optional(),
 }).superRefine((p, ctx) => {
   // Each copy becomes a project piece named "<name> 2 of 2", which must fit the same column.
   const longest = longestPieceName(p.copies)
@@ -68,6 +166,7 @@ export const planPieceSchema = z.object({
 
 const planFields = {
   name: nameSchema,
+  sizes: planSizes,
   machineId: id.nullable(),
   swatchId: id.nullable(),
   yarns: z.array(z.object({ slot, yarnId: id }), 'must be a list of { slot, yarnId }').max(6, 'at most 6 yarns')
@@ -77,21 +176,25 @@ const planFields = {
   notes,
   pieces: z.array(planPieceSchema, 'must be a list of pieces').min(1, 'at least one piece').max(12, 'at most 12 pieces'),
 }
+// A plan created without sizes has one, DEFAULT_PLAN_SIZES: the default is applied here, by the
+// schema, so the route, the database and every answer see the list the shapes were checked against.
 export const planBody = z.object({
   studioId: id,
   ...planFields,
+  sizes: planFields.sizes.default(() => [...DEFAULT_PLAN_SIZES]),
   machineId: planFields.machineId.default(null),
   swatchId: planFields.swatchId.default(null),
   yarns: planFields.yarns.default([]),
   floatLimit: planFields.floatLimit.default(5),
   published: planFields.published.default(false),
   notes: notes.default(''),
-})
+}).superRefine(sizesMatchShapes)
 /**
- * A patch replaces whole fields: `pieces` given replaces every piece. `version` is the one the
+ * A patch replaces whole fields: `pieces` given replaces every piece, `sizes` every size (the
+ * shapes' numbers are checked against the sizes when both come; shapeSizeIssues for one alone). `version` is the one the
  * change was made from: a 409 with the current plan when it has moved on.
  */
-export const planPatch = z.object(planFields).partial().extend({ version: editVersion.optional() })
+export const planPatch = z.object(planFields).partial().extend({ version: editVersion.optional() }).superRefine(sizesMatchShapes)
 export type PlanBody = z.infer<typeof planBody>
 export type PlanPatch = z.infer<typeof planPatch>
 
