@@ -151,3 +151,44 @@ export function sizeFigures(values: (number | string)[], chosen?: number): SizeF
   const text = first === undefined ? '' : rest.length ? `${first} (${rest.join(', ')})` : first
   return { text, parts }
 }
+
+/**
+ * A shape's numbers after the sizes changed: `from` has one entry per new size, the index of
+ * the old size whose numbers it keeps, or null for a new size. A new size continues the row
+ * by the step of the two sizes before it (one before it: the same number; none: no number yet,
+ * NaN, for the designer to fill in); a rename keeps the same map and changes nothing.
+ */
+export function remapShapeSizes(shape: PieceShape, from: (number | null)[]): PieceShape {
+  const measurements: PieceShape['measurements'] = {}
+  for (const [key, row] of Object.entries(shape.measurements) as [ShapeMeasurement, number[]][]) {
+    const out: number[] = []
+    from.forEach((j, i) => {
+      const kept = j === null ? undefined : row[j]
+      if (kept !== undefined) out.push(kept)
+      else if (i >= 2 && Number.isFinite(out[i - 1]!) && Number.isFinite(out[i - 2]!)) out.push(Math.round((2 * out[i - 1]! - out[i - 2]!) * 100) / 100)
+      else out.push(i >= 1 ? out[i - 1]! : Number.NaN)
+    })
+    measurements[key] = out
+  }
+  return { ...shape, measurements, ease: { ...shape.ease } }
+}
+
+/**
+ * The map remapShapeSizes takes when a new list of size names replaces the old one at once
+ * (typed as a range): a size keeps the numbers of the old size of the same name, ignoring
+ * capitals; when no name is kept, sizes keep theirs by position.
+ */
+export function sizeMapByName(before: string[], after: string[]): (number | null)[] {
+  const old = before.map(s => s.trim().toLowerCase())
+  const byName = after.map((s) => { const j = old.indexOf(s.trim().toLowerCase()); return j < 0 ? null : j })
+  return byName.some(j => j !== null) ? byName : after.map((_, i) => (i < before.length ? i : null))
+}
+
+/** Size names typed as one list: "XS, S, M, L" (commas, semicolons or new lines), trimmed, blanks and repeats dropped. */
+export function parseSizeList(text: string): string[] {
+  const out: string[] = []
+  for (const name of text.split(/[,;\n]/).map(s => s.trim()).filter(Boolean)) {
+    if (!out.some(o => o.toLowerCase() === name.toLowerCase())) out.push(name)
+  }
+  return out
+}

@@ -1,7 +1,9 @@
 import { describe, expect, it } from 'vitest'
 import fc from 'fast-check'
 import { gaugePer10cm, KnittingInputError, shapePiece } from '#shared/engine'
-import { fillByStep, gradingProblems, measurementLabel, shapeNeeds, sizedShapeSpec, sizeFigures } from '#shared/planner/sizes'
+import {
+  fillByStep, gradingProblems, measurementLabel, parseSizeList, remapShapeSizes, shapeNeeds, sizedShapeSpec, sizeFigures, sizeMapByName,
+} from '#shared/planner/sizes'
 import { shapeMeasurements, type PieceShape } from '#shared/types/plan'
 
 // A plan's sizes (model declared in shared/planner/sizes.ts): one size's spec, grading helpers, figures.
@@ -189,5 +191,34 @@ describe('sizeFigures', () => {
       { value: '150', chosen: false }, { value: '162', chosen: true }, { value: '174', chosen: false },
     ])
     expect(sizeFigures([150, 162]).parts.every(p => !p.chosen)).toBe(true)
+  })
+})
+
+describe('changing the sizes', () => {
+  const shape = body({ measurements: { hemWidth: [43, 48, 53, 58], lengthToUnderarm: [38, 40, 42, 44] }, ease: { hemWidth: 2 } })
+
+  it.each([
+    ['a size added at the end continues the step', [0, 1, 2, 3, null], [43, 48, 53, 58, 63]],
+    ['a size removed', [0, 2, 3], [43, 53, 58]],
+    ['two sizes swapped', [1, 0, 2, 3], [48, 43, 53, 58]],
+    ['a size added after one: the same number', [0, null], [43, 43]],
+    ['a size added first: no number yet', [null, 0], [Number.NaN, 43]],
+  ])('%s', (_, from, hem) => {
+    const after = remapShapeSizes(shape, from)
+    expect(after.measurements.hemWidth).toEqual(hem)
+    expect(after.measurements.lengthToUnderarm).toHaveLength(from.length)
+    expect(after.ease).toEqual({ hemWidth: 2 })
+    expect(shape.measurements.hemWidth).toEqual([43, 48, 53, 58]) // the old shape is left as it was
+  })
+
+  it('maps a typed range by name, ignoring capitals, else by position', () => {
+    expect(sizeMapByName(['S', 'M', 'L'], ['xs', 's', 'm', 'l', 'xl'])).toEqual([null, 0, 1, 2, null])
+    expect(sizeMapByName(['S', 'M', 'L'], ['chest 86', 'chest 96'])).toEqual([0, 1])
+    expect(sizeMapByName(['One size'], ['S', 'M', 'L'])).toEqual([0, null, null])
+  })
+
+  it('reads a typed list of sizes', () => {
+    expect(parseSizeList(' XS, S,M ;L\nXL,, s ')).toEqual(['XS', 'S', 'M', 'L', 'XL'])
+    expect(parseSizeList(' , ')).toEqual([])
   })
 })
