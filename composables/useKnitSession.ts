@@ -100,7 +100,8 @@ export function useKnitSession(pieceId: number) {
   }
 
   const total = computed(() => compiled.value?.rows.length ?? 0)
-  const advance = () => move('advance', Math.min(completedRows.value + settings.step.value, total.value))
+  // The step's rows come from knitPosition: a pair, or one row where a side of the neck ends.
+  const advance = () => move('advance', position.value?.stepRows?.[1] ?? Math.min(completedRows.value + settings.step.value, total.value))
   const undo = () => move('back', Math.max(completedRows.value - settings.step.value, 0))
   const jump = (to: number) => move('jump', to)
 

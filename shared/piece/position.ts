@@ -66,6 +66,19 @@ function describeSection(s: PieceSection, rows: number, yarns: Map<string, SlotY
   return `${name} · ${rows} rows in ${yarns.get(s.main)?.name ?? s.main} and ${yarns.get(s.contrast)?.name ?? s.contrast}`
 }
 
+/**
+ * The last row (1-based) of the step from `done` completed rows: `step` rows on, but never past
+ * the end of a part of a shaped piece, so the side of the neck is finished before the other
+ * begins (the carriage and the held needles change there).
+ */
+function stepEnd(timeline: PieceTimeline, done: number, step: number, totalRows: number): number {
+  const end = Math.min(done + step, totalRows)
+  const parts = timeline.shape?.rows
+  if (!parts) return end
+  for (let r = done + 1; r < end; r++) if (parts[r]?.part !== parts[done]?.part) return r
+  return end
+}
+
 export function knitPosition(timeline: PieceTimeline, compiled: CompiledPlan, completedRows: number, step: 1 | 2 = 2): KnitPosition {
   const totalRows = compiled.rows.length
   const done = Math.max(0, Math.min(completedRows, totalRows))
@@ -122,7 +135,7 @@ export function knitPosition(timeline: PieceTimeline, compiled: CompiledPlan, co
     ...base,
     finished: false,
     row: done + 1,
-    stepRows: [done + 1, Math.min(done + step, totalRows)],
+    stepRows: [done + 1, stepEnd(timeline, done, step, totalRows)],
     pair: Math.floor(done / 2) + 1,
     section: {
       index: here.section,

@@ -66,4 +66,3 @@ export function tryShape(spec: ShapeSpec, gauge: { stitchesPer10cm: number; rows
     throw e
   }
 }
-

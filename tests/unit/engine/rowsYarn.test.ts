@@ -29,7 +29,8 @@ describe('estimateRowsYarn — every row at its real width', () => {
   it('a rectangle row by row gives estimateYarn\'s answer (together, any offset)', () => {
     const rowsArb = fc.array(fc.stringMatching(/^[.x]{1,6}$/), { minLength: 1, maxLength: 5 })
       .filter(r => r.every(x => x.length === r[0]!.length))
-    fc.assert(fc.property(rowsArb, fc.integer({ min: 1, max: 40 }), fc.integer({ min: 0, max: 9 }), fc.integer({ min: 1, max: 12 }), (chartRows, needles, offset, n) => {
+    const ints = [fc.integer({ min: 1, max: 40 }), fc.integer({ min: 0, max: 9 }), fc.integer({ min: 1, max: 12 })] as const
+    fc.assert(fc.property(rowsArb, ...ints, (chartRows, needles, offset, n) => {
       const chart = chartFromRows(chartRows)
       const plan = { technique: 'together' as const, sections: [{ kind: 'plain' as const, rows: 2, yarn: 'A' }, { kind: 'motif' as const, chart, chartRows: n, main: 'A', contrast: 'B' }] }
       const whole = estimateYarn({ ...common, plan, placement: { needles, offset } })

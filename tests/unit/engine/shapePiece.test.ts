@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest'
 import fc from 'fast-check'
-import { KnittingInputError, rowsForLength, shapePiece, spreadShaping, stitchesForWidth } from '#shared/engine'
+import { rowsForLength, shapePiece, spreadShaping, stitchesForWidth } from '#shared/engine'
 import type { ShapedPiece, ShapedRow, ShapeSpec } from '#shared/engine'
 import { inputError } from './helpers'
-import { bodyArb, cm, frontSpec, gaugeArb, sleeveSpec, specArb, tryShape } from '../../support/shapeSpecs'
+import { bodyArb, frontSpec, gaugeArb, sleeveSpec, specArb, tryShape } from '../../support/shapeSpecs'
 
 // ---------------------------------------------------------------------------------------------
 // Two pieces worked out by hand first, as a pattern sheet would give them (common practice:
@@ -117,7 +117,6 @@ function expandSheet(segments: Segment[]): ShapedRow[] {
 const each = (rows: number[], line: Omit<SheetRow, 'row'>): SheetRow[] => rows.map(row => ({ row, ...line }))
 const range = (from: number, to: number, step = 1) => Array.from({ length: Math.floor((to - from) / step) + 1 }, (_, i) => from + i * step)
 
-
 const neckDecreaseRows = [...range(193, 213, 2), 216]
 const frontSheet: Segment[] = [
   {
@@ -142,7 +141,6 @@ const frontSheet: Segment[] = [
     ],
   },
 ]
-
 
 const sleeveSheet: Segment[] = [
   {

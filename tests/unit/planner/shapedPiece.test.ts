@@ -1,6 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { estimateRowsYarn, gaugePer10cm, KnittingInputError } from '#shared/engine'
 import { compilePieceTimeline } from '#shared/piece/timeline'
+import { knitPosition } from '#shared/piece/position'
 import { piecePicture } from '#shared/planner/piecePicture'
 import { sectionRows } from '#shared/planner/sectionRows'
 import type { PlanPieceContext } from '#shared/planner/planPiece'
@@ -52,6 +53,16 @@ describe('workShapedPiece — the worked front (tests/unit/engine/shapePiece.tes
     expect(e.yarns.find(y => y.yarn === 'B')!.stitches).toBe(3050)
     const knitted = rows.reduce((n, r) => n + r.knitTo - r.knitFrom, 0)
     expect(e.yarns.reduce((n, y) => n + y.stitches, 0)).toBe(knitted)
+  })
+
+  it('a pair step never runs from one side of the neck into the other', () => {
+    const compiled = compilePieceTimeline(w.timeline)
+    const firstLeft = shape.rows.findIndex(r => r.part === 'left')
+    // Each side has an odd count of rows (the parity rule), so a pair from the start of the right side ends one row short of the left.
+    expect((firstLeft - shape.rows.findIndex(r => r.part === 'right')) % 2).toBe(1)
+    expect(knitPosition(w.timeline, compiled, firstLeft - 1, 2).stepRows).toEqual([firstLeft, firstLeft])
+    expect(knitPosition(w.timeline, compiled, firstLeft, 2).stepRows).toEqual([firstLeft + 1, firstLeft + 2])
+    expect(knitPosition(w.timeline, compiled, 0, 2).stepRows).toEqual([1, 2])
   })
 
   it('the preview lists the top twice, once for each side of the neck, in knitting order', () => {
