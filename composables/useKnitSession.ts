@@ -95,8 +95,11 @@ export function useKnitSession(pieceId: number) {
       ? 'Piece finished.'
       : cue === 'change'
         ? `Colour change in ${next.rowsToChange ?? 0} rows: ${next.nextYarns.map(y => y.name).join(' and ')}.`
-        : `New section: ${next.section?.label ?? ''}.`
-    sound.play(cue, spoken)
+        : cue === 'shaping'
+          ? 'Shaping on the next rows.'
+          : `New section: ${next.section?.label ?? ''}.`
+    // Shaping rings the section's sound: both ask the knitter to look before knitting on.
+    sound.play(cue === 'shaping' ? 'section' : cue, spoken)
   }
 
   const total = computed(() => compiled.value?.rows.length ?? 0)

@@ -160,16 +160,38 @@ export function knitPosition(timeline: PieceTimeline, compiled: CompiledPlan, co
 
 /**
  * Whether the step from `before` to `after` completed rows passes the point where the
- * knitter should be warned: `ahead` rows before a colour change or a section start, and the
- * end of the piece. Returns what to announce, most important first.
+ * knitter should be warned: `ahead` rows before a colour change or a section start, the step
+ * that ends within two rows of a shaped piece's shaping (a cast-off, a decrease or increase, needles to or from
+ * holding position, the other side of the neck) and the end of the piece. Returns what to
+ * announce, most important first.
  */
-export function cuesForStep(compiled: CompiledPlan, timeline: PieceTimeline, before: number, after: number, ahead: number): ('change' | 'section' | 'end')[] {
+export function cuesForStep(
+  compiled: CompiledPlan, timeline: PieceTimeline, before: number, after: number, ahead: number,
+): ('change' | 'section' | 'shaping' | 'end')[] {
   if (after <= before) return []
-  const cues: ('change' | 'section' | 'end')[] = []
+  const cues: ('change' | 'section' | 'shaping' | 'end')[] = []
   const total = compiled.rows.length
   if (after >= total) return ['end']
   // A change at row index c is announced once the knitter has completed c − ahead rows.
   if (compiled.changes.some(c => c - ahead > before && c - ahead <= after)) cues.push('change')
   if (sectionRuns(compiled).runs.slice(1).some(sp => sp.start > before && sp.start <= after)) cues.push('section')
+  // Shaping on either of the next two rows (index `after` is the next to knit) is announced now.
+  const rows = timeline.shape?.rows
+  if (rows) {
+    for (let r = after; r <= after + 1 && r < rows.length; r++) {
+      if (shapingRow(rows, r)) {
+        cues.push('shaping')
+        break
+      }
+    }
+  }
   return cues
+}
+
+/** Whether machine row `r` of a shape asks for more than knitting on (see cuesForStep). */
+export function shapingRow(rows: NonNullable<PieceTimeline['shape']>['rows'], r: number): boolean {
+  const row = rows[r]!
+  const before = rows[r - 1]
+  const e = row.castOff.left + row.castOff.right + row.castOff.centre + row.decrease.left + row.decrease.right + row.increase.left + row.increase.right
+  return e > 0 || (!!before && (before.part !== row.part || before.heldInPart !== row.heldInPart))
 }

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest'
 import { estimateRowsYarn, gaugePer10cm, KnittingInputError } from '#shared/engine'
 import { compilePieceTimeline } from '#shared/piece/timeline'
-import { knitPosition } from '#shared/piece/position'
+import { cuesForStep, knitPosition, shapingRow } from '#shared/piece/position'
 import { piecePicture } from '#shared/planner/piecePicture'
 import { sectionRows } from '#shared/planner/sectionRows'
 import type { PlanPieceContext } from '#shared/planner/planPiece'
@@ -122,5 +122,21 @@ describe('piecePicture of a shaped piece', () => {
     expect(row[81]).toBe(0)
     expect(filled(top)).toBeGreaterThan(0)
     expect(row.slice(0, 81).filter(c => c > 0).length).toBe(row.slice(81).filter(c => c > 0).length)
+  })
+})
+
+describe('cues at the machine for a shaped piece', () => {
+  it('rings the step before a shaping row, and not between them (common practice: warn before the carriage reaches it)', () => {
+    const w = workShapedPiece(piece([welt, checks]), frontSpec, 'M', ctx())
+    const compiled = compilePieceTimeline(w.timeline)
+    const rows = w.timeline.shape!.rows
+    // The first side increase is on row 24 (index 23): the pair ending at 22 completed rows rings, the one ending at 20 does not.
+    expect(rows[23]!.increase).toEqual({ left: 1, right: 1 })
+    expect(shapingRow(rows, 23)).toBe(true)
+    expect(cuesForStep(compiled, w.timeline, 20, 22, 2)).toContain('shaping')
+    expect(cuesForStep(compiled, w.timeline, 18, 20, 2)).not.toContain('shaping')
+    // The left side starting is a shaping row too (the held needles come back).
+    const firstLeft = rows.findIndex(r => r.part === 'left')
+    expect(shapingRow(rows, firstLeft)).toBe(true)
   })
 })
