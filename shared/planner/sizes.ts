@@ -14,7 +14,7 @@
 //   details (cast-offs, decreases, shoulder drop, neck, cuff, cap top) often stay the same for
 //   several sizes or all of them, so a level run of those is not a problem.
 
-import { inToCm, KnittingInputError, type ShapeSpec } from '#shared/engine'
+import { atMachine, inToCm, KnittingInputError, type ShapeSpec } from '#shared/engine'
 import type { LengthUnit } from '#shared/types/stock'
 import type { PieceShape, ShapeMeasurement } from '#shared/types/plan'
 import { mayBeZero, shapeNeeds, shapeRows } from '#shared/types/pieceShape'
@@ -75,7 +75,10 @@ export function sizedShapeSpec(shape: PieceShape, sizeIndex: number, unit: Lengt
   const maybe = (key: ShapeMeasurement) => (optional.includes(key) && shape.measurements[key] !== undefined ? at(key) : undefined)
   const has = (key: ShapeMeasurement) => required.includes(key)
 
-  const spec: ShapeSpec = { kind: shape.kind, carriageStart: shape.carriageStart, hemWidth: at('hemWidth'), lengthToUnderarm: at('lengthToUnderarm') }
+  // The plan states the carriage as the knitter sees it; the engine counts sides from the knit side.
+  const spec: ShapeSpec = {
+    kind: shape.kind, carriageStart: atMachine(shape.carriageStart), hemWidth: at('hemWidth'), lengthToUnderarm: at('lengthToUnderarm'),
+  }
   const width = maybe('width')
   if (width !== undefined) spec.width = width
   if (has('armholeDepth')) spec.armhole = { castOff: at('armholeCastOff'), decrease: at('armholeDecrease'), depth: at('armholeDepth') }

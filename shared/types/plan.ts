@@ -56,7 +56,7 @@ export type ShapeMeasurement = typeof shapeMeasurements[number]
  */
 export interface PieceShape {
   kind: 'body' | 'sleeve'
-  /** Side of the carriage before the first row after the cast-on. */
+  /** Side of the carriage before the first row after the cast-on, as the knitter facing the machine sees it. */
   carriageStart: 'left' | 'right'
   /** Body: a set-in armhole; false is a drop shoulder. */
   armhole: boolean

@@ -34,11 +34,12 @@ async function made(res: Promise<{ status: number; body: any }>, status = 201) {
   return r.body
 }
 
-// Size S is the worked front exactly; M adds 4 cm of width and 2 cm of length.
+// Size S is the worked front exactly (its carriage at the left seen from the knit side is at the
+// knitter's right); M adds 4 cm of width and 2 cm of length.
 const front = () => ({
   name: 'Front', targetWidth: 50, targetLength: 56, unit: 'cm',
   shape: {
-    kind: 'body', carriageStart: 'left', armhole: true, shoulder: 'cast-off', neck: 'round', cap: false,
+    kind: 'body', carriageStart: 'right', armhole: true, shoulder: 'cast-off', neck: 'round', cap: false,
     measurements: {
       hemWidth: [50, 54], width: [54, 58], lengthToUnderarm: [36, 38],
       armholeCastOff: [2, 2], armholeDecrease: [1, 1], armholeDepth: [20, 20],

@@ -48,8 +48,9 @@ describe('shapeNeeds', () => {
 describe('sizedShapeSpec', () => {
   it('adds the ease per size: chest 86/96/106/116 round (43…58 flat) with 2.5 ease flat is 5 round (worked by hand)', () => {
     expect([0, 1, 2, 3].map(i => sizedShapeSpec(front, i, 'cm').width)).toEqual([45.5, 50.5, 55.5, 60.5])
+    // The carriage at the knitter's right is at the left seen from the knit side (shared/engine/sides.ts).
     expect(sizedShapeSpec(front, 2, 'cm')).toEqual({
-      kind: 'body', carriageStart: 'right', hemWidth: 55.5, width: 55.5, lengthToUnderarm: 42,
+      kind: 'body', carriageStart: 'left', hemWidth: 55.5, width: 55.5, lengthToUnderarm: 42,
       armhole: { castOff: 3, decrease: 2, depth: 20 },
       shoulder: { width: 13, drop: 1.5, method: 'cast-off' },
       neck: { width: 17, depth: 8, shape: 'round' },
@@ -69,7 +70,7 @@ describe('sizedShapeSpec', () => {
       measurements: { hemWidth: [20, 22], width: [32, 34], lengthToUnderarm: [45, 46], capCastOff: [2, 2], capHeight: [12, 13], capTopWidth: [8, 8] },
     }
     expect(sizedShapeSpec(sleeve, 1, 'cm')).toEqual({
-      kind: 'sleeve', carriageStart: 'right', hemWidth: 22, width: 34, lengthToUnderarm: 46, cap: { castOff: 2, height: 13, topWidth: 8 },
+      kind: 'sleeve', carriageStart: 'left', hemWidth: 22, width: 34, lengthToUnderarm: 46, cap: { castOff: 2, height: 13, topWidth: 8 },
     })
     expect('width' in sizedShapeSpec(body(), 0, 'cm')).toBe(false)
   })
