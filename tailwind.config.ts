@@ -49,6 +49,8 @@ export default {
       fontSize: {
         // The row pair at the machine: as large as the screen allows in either orientation.
         huge: ['clamp(3.5rem, min(12vw, 12vh), 9rem)', { lineHeight: '1' }],
+        // What to do before a row (shaping): read from a metre away, 24 px on phones, 32 px and up on tablets.
+        knit: ['clamp(1.5rem, 3.2vw, 2.25rem)', { lineHeight: '1.15' }],
       },
     },
   },

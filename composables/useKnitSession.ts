@@ -1,5 +1,7 @@
 import { recordStep, resolveConflict, savePiece, StepError, type CachedPiece, type LocalProgress } from '~~/offline'
+import { shapedNeedles } from '#shared/engine'
 import { compilePieceTimeline } from '#shared/piece/timeline'
+import { shapeStep } from '#shared/piece/shapeSteps'
 import { cuesForStep, knitPosition } from '#shared/piece/position'
 import { describeDuration, msPerRow, type PaceStep } from '#shared/piece/pace'
 import type { PieceDetail } from '#shared/types/knit'
@@ -52,6 +54,14 @@ export function useKnitSession(pieceId: number) {
     ? knitPosition(timeline.value, compiled.value, completedRows.value, settings.step.value)
     : null))
 
+  // A shaped piece's row at the machine (null for a rectangle or once finished).
+  const shapeNeedles = computed(() => (timeline.value?.shape ? shapedNeedles(timeline.value.shape) : null))
+  const shaping = computed(() => {
+    const shape = timeline.value?.shape
+    const row = position.value?.row
+    return shape && shapeNeedles.value && row ? shapeStep(shape, shapeNeedles.value, row - 1) : null
+  })
+
   const paceSteps = useLocalStorage<PaceStep[]>(knitPaceKey(pieceId), [])
   const finishEstimate = computed(() => {
     const perRow = msPerRow(paceSteps.value)
@@ -85,6 +95,14 @@ export function useKnitSession(pieceId: number) {
     }
   }
 
+  /** The spoken words for the shaping on the rows after `after` completed rows. */
+  function shapingWords(after: number) {
+    const shape = timeline.value?.shape
+    if (!shape || !shapeNeedles.value || after >= shape.rows.length) return 'Shaping on the next rows.'
+    const s = shapeStep(shape, shapeNeedles.value, after)
+    return [...s.now, ...s.next].map(x => x.text).join('. ') || 'Shaping on the next rows.'
+  }
+
   function announce(before: number, after: number) {
     if (!compiled.value || !timeline.value) return
     const cues = cuesForStep(compiled.value, timeline.value, before, after, settings.ahead.value)
@@ -96,7 +114,7 @@ export function useKnitSession(pieceId: number) {
       : cue === 'change'
         ? `Colour change in ${next.rowsToChange ?? 0} rows: ${next.nextYarns.map(y => y.name).join(' and ')}.`
         : cue === 'shaping'
-          ? 'Shaping on the next rows.'
+          ? shapingWords(after)
           : `New section: ${next.section?.label ?? ''}.`
     // Shaping rings the section's sound: both ask the knitter to look before knitting on.
     sound.play(cue === 'shaping' ? 'section' : cue, spoken)
@@ -120,6 +138,7 @@ export function useKnitSession(pieceId: number) {
     progress,
     pending,
     position,
+    shaping,
     compiled,
     timeline,
     completedRows,

@@ -14,7 +14,7 @@
 import { atMachine, type RowNeedles, type ShapedRow, type Side } from '#shared/engine'
 import type { TimelineShape } from '#shared/piece/types'
 
-export type ShapeInstructionKind = 'return' | 'centre' | 'hold-side' | 'cast-off' | 'decrease' | 'increase' | 'hold' | 'top'
+export type ShapeInstructionKind = 'return' | 'join' | 'centre' | 'hold-side' | 'cast-off' | 'decrease' | 'increase' | 'hold' | 'top'
 
 export interface ShapeInstruction {
   kind: ShapeInstructionKind
@@ -54,17 +54,13 @@ function rowInstructions(shape: TimelineShape, needles: RowNeedles[], i: number)
     // The engine's left part is the second side knitted: its needles waited in holding position.
     const shaped = r.castOff.left + r.castOff.right + r.decrease.left + r.decrease.right - r.increase.left - r.increase.right
     const waiting = needles[i]!.to - needles[i]!.from + shaped
-    out.push({
-      kind: 'return',
-      text: `Now the other side: bring the ${needlesWord(waiting)} held on your ${atMachine('left')} back to work and join the yarn at the carriage (${carriage})`,
-    })
+    out.push({ kind: 'return', text: `Now the other side: bring the ${needlesWord(waiting)} held on your ${atMachine('left')} back to work` })
+    out.push({ kind: 'join', text: `Join the yarn at the carriage (${carriage})` })
   }
   if (firstOfPart && r.part === 'right') {
     if (r.castOff.centre) out.push({ kind: 'centre', text: `Cast off the centre ${stitches(r.castOff.centre)}` })
-    out.push({
-      kind: 'hold-side',
-      text: `Push the ${needlesWord(r.held - r.heldInPart)} on your ${atMachine('left')} to holding position: that side waits while this side is knitted`,
-    })
+    // That side waits in holding position while this one is knitted to the shoulder.
+    out.push({ kind: 'hold-side', text: `Push the ${needlesWord(r.held - r.heldInPart)} on your ${atMachine('left')} to holding position` })
   }
   const total = r.castOff.left + r.castOff.right + (firstOfPart ? 0 : r.castOff.centre)
   const last = total > 0 && r.stitches === 0

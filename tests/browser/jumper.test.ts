@@ -1,5 +1,7 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import type { Browser, BrowserContext, Page } from 'playwright-core'
+import { shapedNeedles } from '#shared/engine'
+import { signedIn } from '../support/api'
 import { launchBrowser, screenshot, seriousAxeViolations, signIn, watchForErrors } from '../support/browser'
 
 // The demo jumper from the plan to the needles: four sizes, a front with armholes and a round
@@ -46,6 +48,61 @@ describe('the demo jumper', () => {
     // The page itself never scrolls sideways (the measurement table scrolls in its own box).
     expect(await page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth)).toBe(true)
     expect(errors.filter(e => !e.includes('status of 401'))).toEqual([]) // the sign-in page asks who is signed in first
+    await context.close()
+  })
+
+  it('a knitter starts it in M and knits the front through the neckline: each side, its instructions and its needles', async () => {
+    const { context, page, errors } = await signedInPage('knitter@floatwise.test')
+    await openJumperPlan(page)
+    await page.selectOption('[data-test="plan-start-size"]', { label: 'M' })
+    expect(await page.textContent('[data-test="plan-start"]')).toBe('Start a project in M')
+    await page.click('[data-test="plan-start"]')
+    await page.waitForURL(url => /^\/projects\/\d+$/.test(url.pathname))
+    const projectId = Number(new URL(page.url()).pathname.split('/').pop())
+    const api = await signedIn('knitter@floatwise.test', 'floatwise-demo')
+    const project = (await api.get(`/api/projects/${projectId}`)).body
+    expect(project.pieces.map((p: any) => p.name)).toEqual(['Back', 'Front', 'Sleeve 1 of 2', 'Sleeve 2 of 2'])
+    const front = (await api.get(`/api/pieces/${project.pieces[1].id}`)).body
+    const shape = front.timeline.shape
+    expect(shape).toMatchObject({ size: 'M', kind: 'body' })
+    const needles = shapedNeedles(shape)
+    const split = shape.rows.findIndex((r: any) => r.part === 'right')
+    const other = shape.rows.findIndex((r: any) => r.part === 'left')
+    const sideRows = other - split
+
+    await page.goto(`/pieces/${front.id}/knit`)
+    await page.waitForSelector('[data-test="knit-shaping"]')
+    const jump = async (row: number) => {
+      await page.click('[data-test="knit-jump"]')
+      await page.fill('[data-test="knit-jump-row"]', String(row))
+      await page.click('[data-test="knit-jump-confirm"]')
+      await page.click('[data-test="knit-jump-confirm"]')
+      await page.waitForFunction(n => document.querySelector('[data-test="knit-row"]')?.getAttribute('data-completed') === String(n), row - 1)
+    }
+    const text = (hook: string) => page.textContent(`[data-test="${hook}"]`)
+
+    // One row before the neck, the split is announced; on it, it is the thing to do.
+    await jump(split)
+    expect(await text('shaping-next')).toContain(`Cast off the centre ${shape.rows[split].castOff.centre} stitches`)
+    await jump(split + 1)
+    expect(await text('shaping-now')).toContain(`Cast off the centre ${shape.rows[split].castOff.centre} stitches`)
+    expect(await text('shaping-now')).toContain(`Push the ${shape.rows[split].held} needles on your right to holding position`)
+    expect(await text('shaping-part')).toContain(`Left side of the neck · 1 of ${sideRows} rows`)
+    expect(Number(await text('needles-in-work'))).toBe(needles[split].knitTo - needles[split].knitFrom)
+    expect(Number(await text('needles-held'))).toBe(shape.rows[split].held)
+    await screenshot(page, 'jumper-knit-neck-1024x768')
+
+    // Knit on by pairs to the end of this side: the step stops on its last row.
+    await jump(other - 1)
+    await page.click('[data-test="knit-advance"]')
+    await page.waitForFunction(n => document.querySelector('[data-test="knit-row"]')?.getAttribute('data-completed') === String(n), other)
+    expect(await text('shaping-now')).toContain('Now the other side: bring the')
+    expect(await text('shaping-part')).toContain(`Right side of the neck · 1 of ${sideRows} rows`)
+    expect(Number(await text('needles-in-work'))).toBe(needles[other].knitTo - needles[other].knitFrom)
+    expect(await page.getAttribute('[data-test="carriage-side"]', 'data-side')).toBe(shape.rows[other].carriage === 'left' ? 'right' : 'left')
+    await screenshot(page, 'jumper-knit-other-side-1024x768')
+    expect(await seriousAxeViolations(page)).toEqual([])
+    expect(errors.filter(e => !e.includes('status of 401'))).toEqual([])
     await context.close()
   })
 })

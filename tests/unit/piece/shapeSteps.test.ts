@@ -54,7 +54,7 @@ describe('shapeStep — the worked front (tests/unit/engine/shapePiece.test.ts),
     const s = step(191)
     expect(s.now.map(x => x.text)).toEqual([
       'Cast off the centre 24 stitches',
-      'Push the 60 needles on your right to holding position: that side waits while this side is knitted',
+      'Push the 60 needles on your right to holding position',
     ])
     expect(s).toMatchObject({ part: { side: 'left', label: 'Left side of the neck', row: 1, rows: 33 }, needlesInWork: 60, held: 60 })
     expect(step(190).next).toEqual(s.now)
@@ -65,7 +65,7 @@ describe('shapeStep — the worked front (tests/unit/engine/shapePiece.test.ts),
 
   it('then the other side, mirrored', () => {
     const s = step(224)
-    expect(s.now.map(x => x.text)).toEqual(['Now the other side: bring the 60 needles held on your right back to work and join the yarn at the carriage (right)'])
+    expect(s.now.map(x => x.text)).toEqual(['Now the other side: bring the 60 needles held on your right back to work', 'Join the yarn at the carriage (right)'])
     expect(s).toMatchObject({ part: { side: 'right', label: 'Right side of the neck', row: 1, rows: 33 }, needlesInWork: 60, held: 0, carriageBefore: 'right' })
     expect(step(226).now.map(x => x.text)).toEqual(['Decrease 1 at the left (neck edge)'])
     expect(step(256).now.map(x => x.text)).toEqual(['Cast off the last 12 stitches at the right (carriage side)'])
