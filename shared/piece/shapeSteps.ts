@@ -37,6 +37,8 @@ export interface ShapeInstruction {
   side?: Side | 'both' | 'centre'
   /** Stitches or needles the instruction is about (each end for a pair). */
   count: number
+  /** A setting that goes with it, shown smaller under the text. */
+  note?: string
 }
 
 export interface ShapePart {
@@ -195,7 +197,8 @@ function instructionsBefore(shape: TimelineShape, i: number): ShapeInstruction[]
   }
 
   // The split: the other side's needles wait in holding position while this part is knitted.
-  const carriageNote = (prev?.held ?? 0) === 0 ? ' and set the carriage to pass over held needles' : ''
+  // The first needles held since none were: the carriage must be set to leave them unknitted.
+  const carriageNote = (prev?.held ?? 0) === 0 ? { note: 'Set the carriage to pass over needles in holding position.' } : {}
   if (startsPart && r.part !== 'whole' && (!prev || prev.part === 'whole')) {
     const waiting = r.held - r.heldInPart
     if (waiting > 0) {
@@ -203,7 +206,8 @@ function instructionsBefore(shape: TimelineShape, i: number): ShapeInstruction[]
         kind: 'hold',
         side: machineSide(r.part === 'right' ? 'left' : 'right'),
         count: waiting,
-        text: `Push the ${machineSide(r.part === 'right' ? 'left' : 'right')} ${plural(waiting, 'needle', 'needles')} to holding position${carriageNote}`,
+        text: `Push the ${machineSide(r.part === 'right' ? 'left' : 'right')} ${plural(waiting, 'needle', 'needles')} to holding position`,
+        ...carriageNote,
       })
     }
   }
@@ -212,12 +216,12 @@ function instructionsBefore(shape: TimelineShape, i: number): ShapeInstruction[]
 
   // Short rows: needles going to holding position at an edge of the part; held ones coming back
   // without a cast-off (not made by the engine today, said if a shape ever has it).
-  const shortRowNote = out.some(o => o.kind === 'hold') ? '' : carriageNote
+  const shortRowNote = out.some(o => o.kind === 'hold') ? {} : carriageNote
   for (const s of sides) {
     const m = machineSide(s)
     const added = r.heldAt[s] - heldBefore[s]
     if (added > 0) {
-      out.push({ kind: 'hold', side: m, count: added, text: `Push ${plural(added, 'needle', 'needles')} at the ${m} to holding position${shortRowNote}` })
+      out.push({ kind: 'hold', side: m, count: added, text: `Push ${plural(added, 'needle', 'needles')} at the ${m} to holding position`, ...shortRowNote })
     }
     else if (added < 0 && r.castOff[s] === 0) {
       out.push({ kind: 'return', side: m, count: -added, text: `Bring the ${plural(-added, 'held needle', 'held needles')} at the ${m} back to work` })

@@ -35,8 +35,8 @@ describe('machineSide — the one rule for sides at the machine (common practice
 //     145    right, cast off 6 at right                  "Cast off 6 at the left (carriage side)"; 150 in work
 //     147    right, dec 1 each end                       "Decrease 1 each end"; 148 in work
 //     191    right part row 1 of 33: centre 24 off,      "Cast off the centre 24 stitches",
-//            60 at left to holding                       "Push the right 60 needles to holding position and set the
-//                                                        carriage to pass over held needles"; "Left side of neck", 1 of 33;
+//            60 at left to holding                       "Push the right 60 needles to holding position" (with the note
+//                                                        to set the carriage); "Left side of neck", 1 of 33;
 //                                                        60 in work, 60 held; carriage left → right
 //     193    dec 1 at neck edge (left)                   "Decrease 1 at the right (neck edge)"
 //     217    cast off 12 at right (shoulder step 1)      "Cast off 12 at the left (carriage side)"; part row 27; 36 in work
@@ -75,8 +75,9 @@ describe('shapeStep — the hand-worked front (common practice)', () => {
     const s = at(191)
     expect(texts(s)).toEqual([
       'Cast off the centre 24 stitches',
-      'Push the right 60 needles to holding position and set the carriage to pass over held needles',
+      'Push the right 60 needles to holding position',
     ])
+    expect(s.now[1]!.note).toBe('Set the carriage to pass over needles in holding position.')
     expect(s.part).toEqual({ kind: 'right', side: 'left', label: 'Left side of neck', row: 1, rows: 33 })
     expect([s.needlesInWork, s.held, s.carriageBefore, s.carriageAfter]).toEqual([60, 60, 'left', 'right'])
     // Shown a row ahead.
@@ -140,7 +141,10 @@ describe('shapeStep — shoulders by holding position (common practice)', () => 
   it('the first short row of the second part says how the carriage is set (nothing was held before)', () => {
     const { at: atHold } = stepper({ ...frontSpec, shoulder: { width: 16, drop: 1.5, method: 'hold' } })
     // The second part's first hold is on the row mirroring 216 (index 249): the row before holds nothing.
-    expect(texts(atHold(249))).toEqual(['Push 12 needles at the right to holding position and set the carriage to pass over held needles'])
+    expect(texts(atHold(249))).toEqual(['Push 12 needles at the right to holding position'])
+    expect(atHold(249).now[0]!.note).toBe('Set the carriage to pass over needles in holding position.')
+    // In the first part the other side's needles are held already: no note.
+    expect(atHold(216).now[0]!.note).toBeUndefined()
     expect(atHold(248).held).toBe(0)
   })
 })
@@ -192,8 +196,8 @@ describe('shapeStep — straight tops and a back (common practice)', () => {
     const { at, shape } = stepper({ ...frontSpec, neck: undefined, shoulder: { width: 16, drop: 1.5, method: 'hold' } })
     const holds = shape.rows.map((_, i) => at(i)).filter(s => s.now.some(x => x.kind === 'hold'))
     expect(holds.length).toBeGreaterThan(1)
-    expect(holds[0]!.now[0]!.text).toMatch(/ and set the carriage to pass over held needles$/)
-    expect(holds.slice(1).every(s => s.now.every(x => !x.text.includes('set the carriage')))).toBe(true)
+    expect(holds[0]!.now[0]!.note).toMatch(/^Set the carriage/)
+    expect(holds.slice(1).every(s => s.now.every(x => x.note === undefined))).toBe(true)
   })
 
   it('refuses a row that is not in the piece', () => {
