@@ -17,7 +17,7 @@ const text = (w: Awaited<ReturnType<typeof mount>>, test: string) => w.get(`[dat
 describe('KnitShaping', () => {
   it('the first neck row: what to do now, the part, the needles, the carriage', async () => {
     const w = await mount(191)
-    expect(w.get('[data-test="knit-shaping"]').exists()).toBe(true)
+    expect(w.find('[data-test="knit-shaping"]').exists()).toBe(true)
     expect(nowTexts(w)).toEqual([
       'Cast off the centre 24 stitches',
       'Push the right 60 needles to holding position',
