@@ -88,7 +88,7 @@ describe('the demo jumper', () => {
     expect(await text('shaping-now')).toContain(`Cast off the centre ${shape.rows[split].castOff.centre} stitches`)
     expect(await text('shaping-now')).toContain(`Push the ${shape.rows[split].held} needles on your right to holding position`)
     expect(await text('shaping-part')).toContain(`Left side of the neck · 1 of ${sideRows} rows`)
-    expect(Number(await text('needles-in-work'))).toBe(needles[split].knitTo - needles[split].knitFrom)
+    expect(Number(await text('needles-in-work'))).toBe(needles[split]!.knitTo - needles[split]!.knitFrom)
     expect(Number(await text('needles-held'))).toBe(shape.rows[split].held)
     await screenshot(page, 'jumper-knit-neck-1024x768')
 
@@ -98,7 +98,7 @@ describe('the demo jumper', () => {
     await page.waitForFunction(n => document.querySelector('[data-test="knit-row"]')?.getAttribute('data-completed') === String(n), other)
     expect(await text('shaping-now')).toContain('Now the other side: bring the')
     expect(await text('shaping-part')).toContain(`Right side of the neck · 1 of ${sideRows} rows`)
-    expect(Number(await text('needles-in-work'))).toBe(needles[other].knitTo - needles[other].knitFrom)
+    expect(Number(await text('needles-in-work'))).toBe(needles[other]!.knitTo - needles[other]!.knitFrom)
     expect(await page.getAttribute('[data-test="carriage-side"]', 'data-side')).toBe(shape.rows[other].carriage === 'left' ? 'right' : 'left')
     await screenshot(page, 'jumper-knit-other-side-1024x768')
     expect(await seriousAxeViolations(page)).toEqual([])
