@@ -89,7 +89,8 @@ export interface PartSpan {
 const cap = (s: string) => s.charAt(0).toUpperCase() + s.slice(1)
 const plural = (n: number, one: string, many: string) => `${n} ${n === 1 ? one : many}`
 
-function partLabel(kind: ShapedRow['part'], hasParts: boolean): string {
+/** A part's name at the machine: "Left side of neck" (the knitter's left), "Below the neck", "Whole piece". */
+export function partLabel(kind: ShapedRow['part'], hasParts: boolean): string {
   if (kind === 'whole') return hasParts ? 'Below the neck' : 'Whole piece'
   return `${cap(machineSide(kind))} side of neck`
 }
