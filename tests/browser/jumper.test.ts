@@ -75,16 +75,19 @@ describe('the demo jumper', () => {
     const jump = async (row: number) => {
       await page.click('[data-test="knit-jump"]')
       await page.fill('[data-test="knit-jump-row"]', String(row))
+      const place = await page.textContent('[data-test="knit-jump-place"]')
       await page.click('[data-test="knit-jump-confirm"]')
       await page.click('[data-test="knit-jump-confirm"]')
       await page.waitForFunction(n => document.querySelector('[data-test="knit-row"]')?.getAttribute('data-completed') === String(n), row - 1)
+      return place
     }
     const text = (hook: string) => page.textContent(`[data-test="${hook}"]`)
 
     // One row before the neck, the split is announced; on it, it is the thing to do.
     await jump(split)
     expect(await text('shaping-next')).toContain(`Cast off the centre ${shape.rows[split].castOff.centre} stitches`)
-    await jump(split + 1)
+    // The jump says where it lands before it is made.
+    expect(await jump(split + 1)).toBe(`Row ${split + 1}: Left side of neck, row 1 of ${sideRows}`)
     expect(await text('shaping-now')).toContain(`Cast off the centre ${shape.rows[split].castOff.centre} stitches`)
     expect(await text('shaping-now')).toContain(`Push the right ${shape.rows[split].held} needles to holding position`)
     expect(await text('shaping-part')).toContain(`Left side of neck · 1 of ${sideRows} rows`)
