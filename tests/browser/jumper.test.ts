@@ -40,6 +40,13 @@ describe('the demo jumper', () => {
     await front.scrollIntoViewIfNeeded()
     await screenshot(page, 'jumper-plan-front-1024x768')
 
+    // The schematic of the front in S, its neck width labelled for every size.
+    const schematic = front.locator('[data-test="piece-schematic"]')
+    await schematic.scrollIntoViewIfNeeded()
+    expect(await schematic.getAttribute('aria-label')).toContain('Front, drawn to scale')
+    expect(await front.locator('[data-test="schematic-dimension"][data-key="neckWidth"]').textContent()).toMatch(/\(.*,.*,.*\) cm/)
+    await screenshot(page, 'jumper-plan-schematic-1024x768')
+
     await page.click('[data-test="plan-size-tab"]:has-text("L")')
     await page.waitForSelector('[data-test="plan-size-tab"][aria-pressed="true"]:has-text("L")')
     expect(await front.locator('[data-test="piece-needles"]').textContent()).toBe('156')
@@ -107,5 +114,25 @@ describe('the demo jumper', () => {
     expect(await seriousAxeViolations(page)).toEqual([])
     expect(errors.filter(e => !e.includes('status of 401'))).toEqual([])
     await context.close()
+  })
+
+  it('prints the sheet with every size\'s figures and each piece\'s schematic, on A4 and on Letter', async () => {
+    for (const [paper, viewport] of [['a4', { width: 794, height: 1123 }], ['letter', { width: 816, height: 1056 }]] as const) {
+      const { context, page, errors } = await signedInPage('designer@floatwise.test', viewport)
+      await openJumperPlan(page)
+      await page.click('[data-test="plan-size-tab"]:has-text("M")')
+      await page.waitForSelector('[data-test="plan-size-tab"][aria-pressed="true"]:has-text("M")')
+      await page.click('[data-test="plan-print"]')
+      await page.waitForSelector('[data-test="piece-schematic"]')
+      await page.emulateMedia({ media: 'print' })
+      expect(await page.textContent('[data-test="sheet-sizes"]')).toContain('S (M, L, XL); rows and sections below are for M')
+      expect(await page.locator('[data-test="piece-schematic"]').count()).toBe(3) // back, front, sleeve
+      expect(await page.locator('[data-test="size-chosen"]').first().textContent()).toBe('M')
+      await screenshot(page, `jumper-sheet-${paper}`)
+      await page.locator('[data-test="piece-schematic"]').nth(1).scrollIntoViewIfNeeded()
+      await screenshot(page, `jumper-sheet-${paper}-front`)
+      expect(errors.filter(e => !e.includes('status of 401'))).toEqual([])
+      await context.close()
+    }
   })
 })
