@@ -291,6 +291,9 @@ export async function loadPlanDetail(id: number) {
   return planDetail((await Plan.findByPk(id, { include: planWithPieces }))!, 'designer')
 }
 
+/** A project's default name: the plan's, with the size when the plan has more than one ("… · size M"). */
+const projectName = (plan: Plan, size: number) => (plan.sizes.length > 1 ? nameWithSuffix(plan.name, ` · size ${plan.sizes[size]}`) : plan.name)
+
 /**
  * A project from a published plan: each chosen piece (× its copies) gets the timeline worked out
  * now, frozen in the project, so later plan edits move nobody's row. Returns the project id.
@@ -320,7 +323,7 @@ export async function startProjectFromPlan(plan: Plan, body: PlanProjectBody, kn
   const motifId = firstMotif?.kind === 'motif' ? firstMotif.motifId : null
   const motif = motifId ? inp.motifMap.get(motifId) : undefined
   const project = await useDb().transaction(transaction => insertProject({
-    studioId: plan.studioId, knitterId, name: body.name ?? plan.name, machineId: plan.machineId, motifId,
+    studioId: plan.studioId, knitterId, name: body.name ?? projectName(plan, size), machineId: plan.machineId, motifId,
     motifName: motif ? motifSectionName(firstMotif!, motif) : undefined, yarns, notes: body.notes ?? plan.notes,
     source: 'plan', plan: { id: plan.id, name: plan.name }, pieces,
   }, transaction))

@@ -96,6 +96,7 @@ describe('sized, shaped plans', () => {
   it('a project in size M freezes that size\'s shape; its rows follow the shape through both sides of the neck', async () => {
     const p = await made(as.designer.post('/api/plans', plan({ name: 'Knit in M', published: true })))
     const project = await made(as.knitter.post(`/api/plans/${p.id}/projects`, { size: 1 }))
+    expect(project.name).toBe('Knit in M · size M')
     const pieceId = project.pieces[0].id
     const { body: piece } = await as.knitter.get(`/api/pieces/${pieceId}`)
     expect(piece.timeline.shape).toMatchObject({ size: 'M', kind: 'body', castOn: 162 })
