@@ -48,7 +48,8 @@ export async function plannedGramsByYarn(studioId: number): Promise<PlannedGrams
 
 /**
  * Grams of each yarn the studio's published plans call for, summed over those plans (drafts are
- * still changing, so they do not count). Plans without an estimate add nothing.
+ * still changing, so they do not count). Plans without an estimate add nothing. A plan in several
+ * sizes counts its first size: which sizes will be knitted is not known until projects start.
  */
 async function workOutPlannedGrams(studioId: number): Promise<PlannedGrams> {
   const plans = await Plan.findAll({ where: { studioId, published: true }, include: planWithPieces })

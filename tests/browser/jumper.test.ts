@@ -111,6 +111,13 @@ describe('the demo jumper', () => {
     expect(Number(await page.getAttribute('[data-test="needles-in-work"]', 'data-count'))).toBe(needles[other]!.knitTo - needles[other]!.knitFrom)
     expect(await page.getAttribute('[data-test="carriage-side"]', 'data-before')).toBe(shape.rows[other].carriage === 'left' ? 'right' : 'left')
     await screenshot(page, 'jumper-knit-other-side-1024x768')
+    for (const [name, viewport] of [['768x1024', { width: 768, height: 1024 }], ['390x844', { width: 390, height: 844 }]] as const) {
+      await page.setViewportSize(viewport)
+      await page.locator('[data-test="knit-shaping"]').scrollIntoViewIfNeeded()
+      expect(await page.locator('[data-test="shaping-now"]').isVisible()).toBe(true)
+      await screenshot(page, `jumper-knit-other-side-${name}`)
+    }
+    await page.setViewportSize({ width: 1024, height: 768 })
     expect(await seriousAxeViolations(page)).toEqual([])
     expect(errors.filter(e => !e.includes('status of 401'))).toEqual([])
     await context.close()
