@@ -11,14 +11,15 @@
 // - x. Needle n sits at x = (n − the leftmost needle knitted) · w, w = 10 / stitches per 10 cm.
 // - Edges. Each edge (left and right outside; the two neck edges where the piece is split) is a
 //   line going up. A change of one stitch (an increase, a decrease) is drawn through the middle of
-//   its step; a change of more (a cast-off, needles going to holding position) as the horizontal
-//   step it is. Among the middles between two such steps, one is dropped when it lies within one
-//   stitch, measured across at its own height, of the straight line through the middles kept
-//   either side (Douglas–Peucker); the steps' ends join the first and last middle. So an even
-//   slope is one segment through its steps' middles (the area stays the knitted area: a line
-//   from the hem's corner would run half a stitch outside the whole slope), and a corner stays
-//   where the rate of shaping changes. One stitch rather than half: slopes spread as "every nth
-//   and every (n+1)th" bend by up to about half a stitch, which would sit on the tolerance.
+//   its step; a change of more (a cast-off, needles going to holding position), and one that
+//   turns back from the one-stitch steps before it, as the horizontal step it is. Among the middles between two such steps, one is dropped when it lies within
+//   half a stitch, measured across at its own height, of the straight line through the middles
+//   kept either side (Douglas–Peucker). So an even slope is one segment through its steps'
+//   middles, a corner stays where the rate of shaping changes, the drawn edge stays within a
+//   stitch of the knitted one and the area is the knitted area (a line from the hem's corner
+//   instead would run half a stitch outside the whole slope). The steps' ends join the first
+//   and last middle; a straight stretch there longer than two of the slope's steps keeps a
+//   corner one step from the slope, so it is drawn straight rather than leaning.
 // - Measurements come from the counts (castOn, counts.*, rows), not from the drawing: a
 //   dimension's value is its stitches × w or rows × h, and its two points are that far apart.
 
@@ -104,12 +105,20 @@ function edgePoints(xs: number[], r0: number, tolerance: number): Pt[] {
   // Runs of points between fixed ones (the ends and both ends of every step of more than a stitch).
   const runs: Pt[][] = [[[xs[0]!, r0]]]
   const fix = (p: Pt) => { runs[runs.length - 1]!.push(p); runs.push([p]) }
+  let way = 0 // the direction of the last one-stitch step in this run
   for (let i = 1; i < xs.length; i++) {
     const before = xs[i - 1]!
     const now = xs[i]!
     if (now === before) continue
-    if (Math.abs(now - before) <= 1) runs[runs.length - 1]!.push([(before + now) / 2, r0 + i])
-    else { fix([before, r0 + i]); fix([now, r0 + i]) }
+    const d = now - before
+    if (Math.abs(d) <= 1 && way * d >= 0) {
+      runs[runs.length - 1]!.push([(before + now) / 2, r0 + i])
+      way = d
+    }
+    else {
+      fix([before, r0 + i]); fix([now, r0 + i])
+      way = 0
+    }
   }
   runs[runs.length - 1]!.push([xs[xs.length - 1]!, r0 + xs.length])
   const out: Pt[] = []
@@ -117,8 +126,22 @@ function edgePoints(xs: number[], r0: number, tolerance: number): Pt[] {
     if (run.length < 2) continue
     // The middles are simplified among themselves; the fixed ends join the first and last of
     // them, so a slope's line runs through its steps' middles and the area stays the knitted one.
+    // A straight stretch at either end longer than twice the slope's step stays straight up to
+    // a step from the slope (a corner), rather than leaning half a stitch all the way.
+    const a = run[0]!
+    const b = run[run.length - 1]!
     const middles = run.slice(1, -1)
-    const kept = [run[0]!, ...douglasPeucker(middles, tolerance), run[run.length - 1]!]
+    const kept: Pt[] = [a]
+    if (middles.length) {
+      const first = middles[0]!
+      const last = middles[middles.length - 1]!
+      const stepIn = middles.length > 1 ? middles[1]![1] - first[1] : b[1] - first[1]
+      const stepOut = middles.length > 1 ? last[1] - middles[middles.length - 2]![1] : first[1] - a[1]
+      if (first[1] - a[1] > 2 * stepIn) kept.push([a[0], first[1] - stepIn])
+      kept.push(...douglasPeucker(middles, tolerance))
+      if (b[1] - last[1] > 2 * stepOut) kept.push([b[0], last[1] + stepOut])
+    }
+    kept.push(b)
     out.push(...(out.length ? kept.slice(1) : kept))
   }
   return out
@@ -146,7 +169,7 @@ export function pieceOutline(piece: ShapedPiece, gauge: SchematicGauge): PieceOu
   const right = Math.max(...rows.map(r => r[r.length - 1]!.to))
   const toCm = (pts: Pt[]): Point[] => pts.map(([x, y]) => ({ x: (x - left) * w, y: y * h }))
   const split = rows.findIndex(r => r.length > 1)
-  const tolerance = 1 // stitch
+  const tolerance = 0.5 // stitch
 
   const leftOuter = toCm(edgePoints(rows.map(r => r[0]!.from), 0, tolerance))
   const rightOuter = toCm(edgePoints(rows.map(r => r[r.length - 1]!.to), 0, tolerance))
@@ -244,14 +267,21 @@ export function pieceDimensions(piece: ShapedPiece, gauge: SchematicGauge, kind:
   }
   const shaped = kind === 'body' ? T - U > 1 : T > U
 
-  add('hemWidth', 'x', 'below', { x: x(outerFrom(0)), y: 0 }, { x: x(outerTo(0)), y: 0 }, piece.castOn)
-  if (c.width !== piece.castOn || shaped) {
-    add('width', 'x', 'below', { x: x(outerFrom(U - 1)), y: U * h }, { x: x(outerTo(U - 1)), y: U * h }, c.width)
+  /** The highest row at or below `r` as wide as `stitches` outside (r when none is). */
+  const widest = (r: number, stitches: number) => {
+    for (let k = Math.min(r, top); k >= 0; k--) if (outerTo(k) - outerFrom(k) === stitches) return k
+    return r
   }
-  add('lengthToUnderarm', 'y', 'right', { x: x(outerTo(0)), y: 0 }, { x: x(outerTo(U - 1)), y: U * h }, U)
+  add('hemWidth', 'x', 'below', { x: x(0), y: 0 }, { x: x(piece.castOn), y: 0 }, piece.castOn) // the cast-on's needles
+  if (c.width !== piece.castOn || shaped) {
+    // The chest's row: the last below the underarm (a drop shoulder's may be in its shaped top).
+    const r = widest(U - 1, c.width)
+    add('width', 'x', 'below', { x: x(outerFrom(r)), y: (r + 1) * h }, { x: x(outerTo(r)), y: (r + 1) * h }, c.width)
+  }
+  add('lengthToUnderarm', 'y', 'right', { x: x(piece.castOn), y: 0 }, { x: x(outerTo(U - 1)), y: U * h }, U)
   if (shaped) {
     add(kind === 'body' ? 'armholeDepth' : 'capHeight', 'y', 'right', { x: x(outerTo(U - 1)), y: U * h }, { x: x(outerTo(top)), y: T * h }, T - U)
-    add('totalLength', 'y', 'right', { x: x(outerTo(0)), y: 0 }, { x: x(outerTo(top)), y: T * h }, T)
+    add('totalLength', 'y', 'right', { x: x(piece.castOn), y: 0 }, { x: x(outerTo(top)), y: T * h }, T)
   }
   if (kind === 'sleeve') {
     if (shaped) add('capTopWidth', 'x', 'above', { x: x(outerFrom(top)), y: T * h }, { x: x(outerTo(top)), y: T * h }, c.top)
@@ -259,8 +289,7 @@ export function pieceDimensions(piece: ShapedPiece, gauge: SchematicGauge, kind:
   }
 
   // The shoulder point: the highest row still as wide as across the shoulders.
-  let sp = top
-  while (sp > 0 && outerTo(sp) - outerFrom(sp) !== c.top) sp--
+  const sp = widest(top, c.top)
   const xR = x(outerTo(sp))
   const ySp = (sp + 1) * h
   if (c.neckRows > 0) {

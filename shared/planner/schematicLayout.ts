@@ -10,8 +10,9 @@
 //   sized by an estimate of the glyphs (about 0.56 em a digit), so a label wider than its line
 //   moves outward rather than over its neighbour.
 // - Below and above: a horizontal line with its label centred on it (below the line under the
-//   hem, above it over the top), extension lines from the piece's points. Right: a vertical line
-//   with its label turned to read upwards. The neck's depth is a line inside the neck; its label
+//   hem, above it over the top), extension lines from the piece's points; a label is moved left
+//   so it ends before the piece's right edge. Right: a vertical line with its label turned to
+//   read upwards, moved to stay beside the piece's height. So labels of different sides never meet. The neck's depth is a line inside the neck; its label
 //   goes on the tiers above, with a leader up to it.
 
 import { cmToIn } from '#shared/engine'
@@ -114,7 +115,8 @@ export function layoutSchematic(
     if (d.side === 'right') {
       const y0 = Math.min(a.y, b.y)
       const y1 = Math.max(a.y, b.y)
-      const mid = (y0 + y1) / 2
+      // Kept beside the piece's height where it fits, clear of the labels above and below.
+      const mid = tw >= H ? H / 2 : Math.min(H - tw / 2, Math.max(tw / 2, (y0 + y1) / 2))
       const t = tierFor('right', { from: y0, to: y1 }, { from: mid - tw / 2, to: mid + tw / 2 })
       const x = W + gap + t * rightStep
       const line: [Point, Point] = [{ x, y: y1 }, { x, y: y0 }]
@@ -129,20 +131,22 @@ export function layoutSchematic(
     }
     if (d.axis === 'y') {
       // The neck's depth: its line inside the neck, its label above with a leader.
-      const t = tierFor('above', null, { from: a.x - tw / 2, to: a.x + tw / 2 })
+      const cx = Math.min(W - tw / 2, a.x)
+      const t = tierFor('above', null, { from: cx - tw / 2, to: cx + tw / 2 })
       const ly = -(gap + t * tierStep)
       const line: [Point, Point] = [a, b]
       laid.push({
         key: d.key, text, line, arrows: arrowsOf(a, b),
         guides: [[b, { x: b.x, y: ly - 0.1 * f }]],
-        label: { x: a.x, y: ly - 0.35 * f, rotate: false },
+        label: { x: cx, y: ly - 0.35 * f, rotate: false },
       })
-      grow(a.x - tw / 2, ly - 1.2 * f); grow(a.x + tw / 2, ly)
+      grow(cx - tw / 2, ly - 1.2 * f); grow(cx + tw / 2, ly)
       continue
     }
     const x0 = Math.min(a.x, b.x)
     const x1 = Math.max(a.x, b.x)
-    const mid = (x0 + x1) / 2
+    // Kept left of the piece's right edge, clear of the labels on the right.
+    const mid = Math.min(W - tw / 2, (x0 + x1) / 2)
     const t = tierFor(d.side, { from: x0, to: x1 }, { from: mid - tw / 2, to: mid + tw / 2 })
     const below = d.side === 'below'
     const y = below ? H + gap + t * tierStep : -(gap + t * tierStep)
