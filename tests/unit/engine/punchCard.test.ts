@@ -111,7 +111,7 @@ describe('cardWidthFits — hand-worked examples (header 2)', () => {
 })
 
 describe('cardFromGrid — hand-worked examples (header 3; threshold by Otsu 1979, published method)', () => {
-  it.each([
+  it.each<[number[], number, number, number | undefined, boolean, string[], string]>([
     // [darkness, cols, rows, threshold, invert, chart rows, source]
     [[40, 200, 40, 200, 200, 40], 3, 2, undefined, false, ['.xx', '.x.'], 'by hand: Otsu t = 40, dark = hole'],
     [[40, 200, 40, 200, 200, 40], 3, 2, undefined, true, ['x..', 'x.x'], 'by hand: the same, light holes'],
@@ -307,6 +307,18 @@ describe('cardFromGrid — properties (Otsu 1979)', () => {
       const expected = expectedChart(holes, cols, rows)
       expect(cardFromGrid(dark, cols, rows).cells).toEqual(expected)
       expect(cardFromGrid(light, cols, rows, undefined, true).cells).toEqual(expected)
+    }))
+  })
+
+  it('reads a photo of any printed card back as the card (printed mirrored, photographed top row first)', () => {
+    fc.assert(fc.property(cardArb, ({ chart, across, minRows, joinRows }) => {
+      const card = punchCard(chart, { width: chart.width * across, minRows, joinRows })
+      const punched = cardAsPunched(card)
+      const darkness: number[] = []
+      for (let y = 0; y < punched.rows; y++) {
+        for (let x = 0; x < punched.width; x++) darkness.push(punched.holes[(punched.rows - 1 - y) * punched.width + x] ? 210 : 35)
+      }
+      expect(cardFromGrid(darkness, card.width, card.rows).cells).toEqual(card.holes)
     }))
   })
 
