@@ -3,8 +3,8 @@
 // within 10× of a baseline that only reads every knitted cell once.
 
 import { expect, it } from 'vitest'
-import { analyseFloats, chartFromRows, chooseCatchNeedles, compilePlan, estimateYarn } from '#shared/engine'
-import type { Chart } from '#shared/engine'
+import { analyseFloats, chartFromRows, chooseCatchNeedles, compilePlan, estimateRowsYarn, estimateYarn, punchCard, shapedNeedles, shapePiece } from '#shared/engine'
+import type { Chart, KnittedRow } from '#shared/engine'
 
 const NEEDLES = 200
 const ROWS = 2000
@@ -96,8 +96,20 @@ const plan = (technique: 'together' | 'colour-by-colour') => ({
   ],
 })
 
+// A body about 200 stitches wide and 2000 rows high at 30 × 40 per 10 cm (long, to be measured
+// row by row against the same area): side shaping, armholes, stepped shoulders, a round neck.
+const tallBody = {
+  kind: 'body' as const, hemWidth: 62, width: 66, lengthToUnderarm: 440,
+  armhole: { castOff: 2, decrease: 2, depth: 60 }, shoulder: { width: 16, drop: 2, method: 'cast-off' as const }, neck: { width: 16, depth: 10, shape: 'round' as const },
+}
+const gauge30x40 = { stitchesPer10cm: 30, rowsPer10cm: 40 }
+
 it('engine speed: 24-stitch motif, 200 needles × 2000 rows', () => {
   const placement = { needles: NEEDLES, offset: OFFSET }
+  // Every row of the motif at the full width, as estimateRowsYarn counts a shaped piece's rows.
+  const knitted: KnittedRow[] = compilePlan(plan('together')).rows.map(r => ({
+    knitFrom: 0, knitTo: NEEDLES, yarns: r.yarns, chart: r.chartRow === null ? undefined : motif, chartRow: r.chartRow ?? undefined, offset: OFFSET,
+  }))
   const base = time(baseline)
   const results = [
     ['baseline: read every cell', base],
@@ -109,6 +121,11 @@ it('engine speed: 24-stitch motif, 200 needles × 2000 rows', () => {
       plan: plan('colour-by-colour'), placement, swatch: { stitches: 10000, grams: 70 }, needlePitchMm: 4.5,
       yarns: { navy: { metresPer100g: 400 }, cream: { metresPer100g: 400 } },
     }))],
+    ['estimateRowsYarn (row by row, together)', time(() => estimateRowsYarn({
+      rows: knitted, swatch: { stitches: 10000, grams: 70 }, needlePitchMm: 4.5, yarns: { navy: { metresPer100g: 400 }, cream: { metresPer100g: 400 } },
+    }))],
+    ['shapePiece + shapedNeedles (~2000 rows)', time(() => shapedNeedles(shapePiece(tallBody, gauge30x40)))],
+    ['punchCard (24 wide, 2000 rows)', time(() => punchCard(motif, { width: 24, minRows: ROWS, joinRows: 2 }))],
   ] as const
   const table = results.map(([name, ms]) => ({ name, 'median ms': Number(ms.toFixed(3)), 'ratio to baseline': Number((ms / base).toFixed(2)) }))
   console.log(`\nengine bench (${NEEDLES} needles × ${ROWS} rows, 24-stitch repeat; median of 21 runs after 7 warm-up)`)
