@@ -1,8 +1,8 @@
-import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
-import type { Browser, BrowserContext, Page } from 'playwright-core'
+import { afterAll, beforeAll, describe, expect, it } from 'vitest'
+import type { Browser, Page } from 'playwright-core'
 import { shapedNeedles } from '#shared/engine'
 import { signedIn } from '../support/api'
-import { launchBrowser, screenshot, seriousAxeViolations, signIn, watchForErrors } from '../support/browser'
+import { launchBrowser, screenshot, seriousAxeViolations, signedInPage as signedInTablet } from '../support/browser'
 
 // The demo jumper from the plan to the needles: four sizes, a front with armholes and a round
 // neck, set-in sleeves. Looked at on the most common tablet, 1024 × 768.
@@ -10,15 +10,7 @@ let browser: Browser
 beforeAll(async () => { browser = await launchBrowser() })
 afterAll(async () => { await browser?.close() })
 
-async function signedInPage(email: string, viewport = { width: 1024, height: 768 }): Promise<{ context: BrowserContext; page: Page; errors: string[] }> {
-  const context = await browser.newContext({ baseURL: inject('baseUrl'), viewport, deviceScaleFactor: 1, hasTouch: true })
-  const errors = watchForErrors(context)
-  const page = await context.newPage()
-  await page.goto('/login')
-  await signIn(page, email)
-  await page.waitForURL(url => url.pathname === '/')
-  return { context, page, errors }
-}
+const signedInPage = (email: string, viewport = { width: 1024, height: 768 }) => signedInTablet(browser, email, viewport)
 
 async function openJumperPlan(page: Page) {
   await page.goto('/plans')

@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest'
 import type { Browser, Page } from 'playwright-core'
-import { launchBrowser, newTabletContext, screenshot, screenshotDir, signIn, watchForErrors, seriousAxeViolations } from '../support/browser'
+import { launchBrowser, screenshot, screenshotDir, seriousAxeViolations, signedInPage as signedInTablet } from '../support/browser'
 
 // The planner as a designer uses it (stock, a plan from a target size, shaping, publish) and
 // as a knitter (a project from the published plan, then the knit view of its first piece).
@@ -8,15 +8,7 @@ let browser: Browser
 beforeAll(async () => { browser = await launchBrowser() })
 afterAll(async () => { await browser?.close() })
 
-async function signedInPage(email: string, orientation: 'landscape' | 'portrait' = 'landscape', dark = false) {
-  const context = await newTabletContext(browser, orientation, { dark })
-  const errors = watchForErrors(context)
-  const page = await context.newPage()
-  await page.goto('/login')
-  await signIn(page, email)
-  await page.waitForURL(url => url.pathname === '/')
-  return { context, page, errors }
-}
+const signedInPage = (email: string, orientation: 'landscape' | 'portrait' = 'landscape', dark = false) => signedInTablet(browser, email, orientation, dark)
 
 async function chooseOption(page: Page, selector: string, text: string) {
   const value = await page.$eval(selector, (el, t) => [...(el as HTMLSelectElement).options].find(o => o.textContent?.includes(t))?.value, text)

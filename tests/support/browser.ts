@@ -20,10 +20,13 @@ export const tablet = {
   portrait: { width: 820, height: 1180 },
 }
 
-export async function newTabletContext(browser: Browser, orientation: keyof typeof tablet = 'landscape', options: { dark?: boolean } = {}) {
+/** A touch screen: one of the tablet orientations, or a viewport of its own (a phone, a 1024 × 768 tablet). */
+export async function newTabletContext(
+  browser: Browser, orientation: keyof typeof tablet | { width: number; height: number } = 'landscape', options: { dark?: boolean } = {},
+) {
   return browser.newContext({
     baseURL: inject('baseUrl'),
-    viewport: tablet[orientation],
+    viewport: typeof orientation === 'string' ? tablet[orientation] : orientation,
     deviceScaleFactor: 1,
     hasTouch: true,
     colorScheme: options.dark ? 'dark' : 'light',
@@ -36,6 +39,19 @@ export async function signIn(page: Page, email: string, password = 'floatwise-de
   await page.fill('[data-test="field-email"]', email)
   await page.fill('[data-test="field-password"]', password)
   await page.click('[data-test="login-submit"]')
+}
+
+/** A new touch-screen context with the demo person signed in and on the home page, watching for errors. */
+export async function signedInPage(
+  browser: Browser, email: string, orientation: Parameters<typeof newTabletContext>[1] = 'landscape', dark = false,
+): Promise<{ context: BrowserContext; page: Page; errors: string[] }> {
+  const context = await newTabletContext(browser, orientation, { dark })
+  const errors = watchForErrors(context)
+  const page = await context.newPage()
+  await page.goto('/login')
+  await signIn(page, email)
+  await page.waitForURL(url => url.pathname === '/')
+  return { context, page, errors }
 }
 
 export async function screenshot(page: Page, name: string) {
