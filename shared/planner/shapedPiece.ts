@@ -84,12 +84,14 @@ export function workShapedPiece(piece: PlanPieceInput, spec: ShapeSpec, size: st
 
   // Floats at the real width: one analysis per stretch of needles (width, first column) a motif section meets.
   const analyses = new Map<string, RowFloats[]>()
+  const charts = new Map<number, Chart>()
   const longest = new Map<number, [number, number]>() // timeline section → longest per yarn
   compiled.rows.forEach((r, i) => {
     const s = timeline.sections[r.section]!
     const n = needles[i]!
     if (s.kind !== 'motif' || r.chartRow === null || n.knitTo <= n.knitFrom) return
-    const chart = chartFromRows(s.chart)
+    let chart = charts.get(r.section)
+    if (!chart) charts.set(r.section, (chart = chartFromRows(s.chart)))
     const offset = mod(fitted.offsets[r.section]! + n.knitFrom, chart.width)
     const key = `${r.section}:${n.knitTo - n.knitFrom}:${offset}`
     let rows = analyses.get(key)
