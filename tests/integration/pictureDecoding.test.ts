@@ -1,6 +1,6 @@
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { apiClient, signedIn, type ApiClient } from '../support/api'
-import { startAppServer } from '../support/appServer'
+import { startExtraAppServer } from '../support/extraServer'
 import { closeTestDb, fixturePassword, makeStudio } from '../support/db'
 import { chartPicture, pictureForm, pngBomb, webpBomb } from '../support/pictures'
 import type { PicturePreview } from '#shared/types/motif'
@@ -98,11 +98,11 @@ describe('one picture at a time per user', () => {
 })
 
 describe('a picture that takes too long', () => {
-  let server: Awaited<ReturnType<typeof startAppServer>>
+  let server: Awaited<ReturnType<typeof startExtraAppServer>>
   beforeAll(async () => {
     // A time limit far below what the slowest 4-megapixel PNG takes (seconds), far above a
     // tiny picture (a millisecond, more on a busy machine).
-    server = await startAppServer({ NUXT_PICTURE_DECODE_TIMEOUT_MS: '500' })
+    server = await startExtraAppServer({ NUXT_PICTURE_DECODE_TIMEOUT_MS: '500' })
   })
   afterAll(() => server?.close())
 

@@ -2,7 +2,7 @@ import { createHash, randomUUID } from 'node:crypto'
 import * as iron from 'iron-webcrypto'
 import { afterAll, beforeAll, describe, expect, inject, it } from 'vitest'
 import { apiClient, signedIn, uniqueEmail } from '../support/api'
-import { startAppServer } from '../support/appServer'
+import { startExtraAppServer } from '../support/extraServer'
 import { rawRequest } from '../support/rawHttp'
 import { closeTestDb, fixturePassword, makeStudio, makeUser } from '../support/db'
 import { storedRows } from '../support/storedRows'
@@ -224,9 +224,9 @@ describe('the Host a request names (DNS rebinding)', () => {
 })
 
 describe('a server without a proxy (NUXT_TRUST_PROXY=false), with NUXT_ALLOWED_HOSTS', () => {
-  let server: Awaited<ReturnType<typeof startAppServer>>
+  let server: Awaited<ReturnType<typeof startExtraAppServer>>
   beforeAll(async () => {
-    server = await startAppServer({ NUXT_TRUST_PROXY: 'false', NUXT_ALLOWED_HOSTS: 'knitroom.local, Studio.Example' })
+    server = await startExtraAppServer({ NUXT_TRUST_PROXY: 'false', NUXT_ALLOWED_HOSTS: 'knitroom.local, Studio.Example' })
   })
   afterAll(() => server?.close())
 

@@ -13,7 +13,7 @@ import {
 } from '../../offline'
 import { Piece, RowEvent } from '../../server/db/models'
 import { apiClient, type ApiClient } from '../support/api'
-import { startAppServer } from '../support/appServer'
+import { startExtraAppServer } from '../support/extraServer'
 import { closeTestDb, fixturePassword, makeProject, makeStudio } from '../support/db'
 
 // The client's store and syncer against the built server and MariaDB: each simulated tablet
@@ -153,9 +153,9 @@ describe('a long offline session', () => {
 })
 
 describe('the server stops mid-sync', () => {
-  let server: Awaited<ReturnType<typeof startAppServer>>
+  let server: Awaited<ReturnType<typeof startExtraAppServer>>
   beforeAll(async () => {
-    server = await startAppServer()
+    server = await startExtraAppServer()
   })
   afterAll(() => server?.close())
 

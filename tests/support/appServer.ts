@@ -18,13 +18,18 @@ export function freePort(): Promise<number> {
   })
 }
 
-/** The built server (.output) on a free port against DATABASE_URL, with its own mail fake. */
-export async function startAppServer(extraEnv: Record<string, string> = {}) {
+/**
+ * The built server (.output) on a free port against DATABASE_URL, with its own mail fake — or,
+ * with `mail`, the mail fake of another server on the same database: every server sends what the
+ * shared mail queue holds, so a second server with a fake of its own would carry off mail the
+ * first one's tests wait for.
+ */
+export async function startAppServer(extraEnv: Record<string, string> = {}, shared: { mail?: { url: string; dir: string } } = {}) {
   if (!process.env.DATABASE_URL && !extraEnv.DATABASE_URL) throw new Error('DATABASE_URL is not set: run the tests through `npm test`')
-  const mailDir = mkdtempSync(join(tmpdir(), 'floatwise-mail-'))
+  const mailDir = shared.mail?.dir ?? mkdtempSync(join(tmpdir(), 'floatwise-mail-'))
   // Each server keeps motif pictures in a folder of its own, so tests can count what it stored.
   const picturesDir = mkdtempSync(join(tmpdir(), 'floatwise-pictures-'))
-  const mail = await startMailFake(mailDir)
+  const mail = shared.mail ? { url: shared.mail.url, close: async () => {} } : await startMailFake(mailDir)
   const port = await freePort()
   const baseUrl = `http://127.0.0.1:${port}`
   const env = {
@@ -62,7 +67,7 @@ export async function startAppServer(extraEnv: Record<string, string> = {}) {
   }
   await start()
   return {
-    baseUrl, mailDir, picturesDir, port,
+    baseUrl, mailDir, picturesDir, port, smtpUrl: mail.url,
     restart: async () => { await stop(); await start() },
     /** A crash rather than a shutdown: requests in flight get no answer (the soak plays it). */
     kill: () => stop('SIGKILL'),

@@ -6,6 +6,7 @@ export default async function setup(project: TestProject) {
   const server = await startAppServer()
   project.provide('baseUrl', server.baseUrl)
   project.provide('mailDir', server.mailDir)
+  project.provide('smtpUrl', server.smtpUrl)
   project.provide('picturesDir', server.picturesDir)
   return () => server.close()
 }
@@ -14,6 +15,7 @@ declare module 'vitest' {
   export interface ProvidedContext {
     baseUrl: string
     mailDir: string
+    smtpUrl: string
     picturesDir: string
   }
 }
