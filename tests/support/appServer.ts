@@ -22,11 +22,14 @@ export function freePort(): Promise<number> {
  * The built server (.output) on a free port against DATABASE_URL, with its own mail fake — or,
  * with `mail`, the mail fake of another server on the same database: every server sends what the
  * shared mail queue holds, so a second server with a fake of its own would carry off mail the
- * first one's tests wait for.
+ * first one's tests wait for. `mailDir`: a fake of its own that keeps mail in that folder (the
+ * test projects' servers all keep theirs in one, as they share one database and its queue).
  */
-export async function startAppServer(extraEnv: Record<string, string> = {}, shared: { mail?: { url: string; dir: string } } = {}) {
+export async function startAppServer(
+  extraEnv: Record<string, string> = {}, shared: { mail?: { url: string; dir: string }; mailDir?: string } = {},
+) {
   if (!process.env.DATABASE_URL && !extraEnv.DATABASE_URL) throw new Error('DATABASE_URL is not set: run the tests through `npm test`')
-  const mailDir = shared.mail?.dir ?? mkdtempSync(join(tmpdir(), 'floatwise-mail-'))
+  const mailDir = shared.mail?.dir ?? shared.mailDir ?? mkdtempSync(join(tmpdir(), 'floatwise-mail-'))
   // Each server keeps motif pictures in a folder of its own, so tests can count what it stored.
   const picturesDir = mkdtempSync(join(tmpdir(), 'floatwise-pictures-'))
   const mail = shared.mail ? { url: shared.mail.url, close: async () => {} } : await startMailFake(mailDir)

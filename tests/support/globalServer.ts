@@ -1,9 +1,17 @@
+import { mkdirSync } from 'node:fs'
+import { tmpdir } from 'node:os'
+import { join } from 'node:path'
 import type { TestProject } from 'vitest/node'
 import { startAppServer } from './appServer'
 
 // One built server per test project that needs it; files reach it through inject().
+// Every project's server works on the one test database, so any of them may send a mail another
+// project's test queued: they all keep mail in one folder of this run, where every test looks.
+const runMailDir = join(tmpdir(), `floatwise-mail-run-${process.pid}`)
+
 export default async function setup(project: TestProject) {
-  const server = await startAppServer()
+  mkdirSync(runMailDir, { recursive: true })
+  const server = await startAppServer({}, { mailDir: runMailDir })
   project.provide('baseUrl', server.baseUrl)
   project.provide('mailDir', server.mailDir)
   project.provide('smtpUrl', server.smtpUrl)
