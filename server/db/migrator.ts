@@ -8,6 +8,7 @@ import * as m0005 from './migrations/0005-planner'
 import * as m0006 from './migrations/0006-sessions-and-mail'
 import * as m0007 from './migrations/0007-edit-versions'
 import * as m0008 from './migrations/0008-sizes-and-shapes'
+import * as m0009 from './migrations/0009-machine-cards'
 
 // Listed by hand (no file glob) so the bundled server and scripts find the same set.
 // Append new migrations; never edit one that has shipped.
@@ -20,6 +21,7 @@ const migrations = [
   { name: '0006-sessions-and-mail', ...m0006 },
   { name: '0007-edit-versions', ...m0007 },
   { name: '0008-sizes-and-shapes', ...m0008 },
+  { name: '0009-machine-cards', ...m0009 },
 ]
 
 export function createMigrator(sequelize: Sequelize) {

@@ -1,6 +1,7 @@
 import type { H3Event } from 'h3'
 import type { Transaction } from 'sequelize'
 import { distinguishable, estimateRowsYarn, estimateYarn, KnittingInputError, type YarnEstimate } from '#shared/engine'
+import { timelineCard } from '#shared/piece/cardRow'
 import { compilePieceTimeline, pieceTimelinePlan } from '#shared/piece/timeline'
 import { motifSectionName, planSlotYarns, type PlanMotif, type WorkedPlanPiece } from '#shared/planner/planPiece'
 import { shapedKnittedRows, shapeSizeCounts } from '#shared/planner/shapedPiece'
@@ -132,6 +133,7 @@ function workPieces(plan: Plan, inp: Inputs, warnings: PlanWarning[], size: numb
       return workPiece(p, {
         gauge, technique: inp.machine?.technique ?? 'together', passesPerColour: inp.machine?.passesPerColour ?? 2,
         yarns: inp.slots.map(s => ({ slot: s.slot, name: s.yarn.name, hex: s.yarn.hex })), motifs: inp.motifMap, floatLimit: plan.floatLimit,
+        card: inp.machine ? timelineCard({ patterningWidth: inp.machine.patterningWidth, card: machineCard(inp.machine) }, inp.machine.technique) : undefined,
       }, { index: size, name: plan.sizes[size]! })
     }
     catch (e) {

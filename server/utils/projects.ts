@@ -1,6 +1,7 @@
 import type { H3Event } from 'h3'
 import { Op } from 'sequelize'
 import { KnittingInputError } from '#shared/engine'
+import { timelineCard } from '#shared/piece/cardRow'
 import { borderedMotifTimeline, compilePieceTimeline, slotYarns } from '#shared/piece/timeline'
 import type { KnitterPiece, PieceDetail, PieceProgress, ProjectDetail, ProjectSummary } from '#shared/types/knit'
 import { roleAtLeast, type StudioRole } from '#shared/types/studio'
@@ -189,6 +190,8 @@ export async function createProjectFromForm(body: NewProjectBody, knitterId: num
     motif: { name: motif.name, chart: motifChartRows(motif) },
     chartRows: body.chartRows, borderBefore: body.borderBefore, borderAfter: body.borderAfter,
   })
+  const card = machine ? timelineCard({ patterningWidth: machine.patterningWidth, card: machineCard(machine) }, body.technique) : undefined
+  if (card) timeline.card = card
   try { compilePieceTimeline(timeline) }
   catch (e) {
     if (!(e instanceof KnittingInputError)) throw e

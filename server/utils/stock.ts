@@ -1,7 +1,7 @@
 import type { H3Event } from 'h3'
 import type { Model, ModelStatic } from 'sequelize'
 import { gaugeFromSwatch, gaugePer4in, inToCm, yarnWeightCategory, YARN_WEIGHT_CATEGORIES, type Gauge } from '#shared/engine'
-import type { MachineItem, SwatchGauge, SwatchItem, YarnItem } from '#shared/types/stock'
+import type { MachineCard, MachineItem, SwatchGauge, SwatchItem, YarnItem } from '#shared/types/stock'
 import type { StudioRole } from '#shared/types/studio'
 import type { Swatch } from '../db/models'
 import { Machine, Yarn } from '../db/models'
@@ -34,7 +34,30 @@ export function machineItem(m: Machine): MachineItem {
   return {
     id: m.id, studioId: m.studioId, name: m.name, needlePitchMm: Number(m.needlePitchMm), needles: m.needles,
     patterningWidth: m.patterningWidth, technique: m.technique, passesPerColour: m.passesPerColour, notes: m.notes,
-    createdAt: iso(m.createdAt), updatedAt: iso(m.updatedAt),
+    card: machineCard(m), createdAt: iso(m.createdAt), updatedAt: iso(m.updatedAt),
+  }
+}
+
+/** The machine's punch card as the API gives it (null when it does not pattern from a card). */
+export function machineCard(m: Machine): MachineCard | null {
+  if (!m.cardReader) return null
+  return {
+    holePitchMm: Number(m.cardHolePitchMm), rowPitchMm: Number(m.cardRowPitchMm), edgeMm: Number(m.cardEdgeMm),
+    minRows: m.cardMinRows, joinRows: m.cardJoinRows, readerOffset: m.cardReaderOffset,
+  }
+}
+
+/**
+ * A machine body's columns: the card's measures go to their own columns; a null card keeps the
+ * stored measures (a card switched off and on again comes back as it was).
+ */
+export function machineColumns<B extends { card?: MachineCard | null }>(body: B) {
+  const { card, ...rest } = body
+  if (card === undefined) return rest
+  if (card === null) return { ...rest, cardReader: false }
+  return {
+    ...rest, cardReader: true, cardHolePitchMm: card.holePitchMm, cardRowPitchMm: card.rowPitchMm, cardEdgeMm: card.edgeMm,
+    cardMinRows: card.minRows, cardJoinRows: card.joinRows, cardReaderOffset: card.readerOffset,
   }
 }
 

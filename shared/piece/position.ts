@@ -3,6 +3,7 @@
 // what comes up next. Pure: the same answer on the tablet offline and in tests.
 
 import type { CompiledPlan } from '#shared/engine'
+import { cardRowAt, type CardRowAt } from '#shared/piece/cardRow'
 import type { PieceSection, PieceTimeline, SlotYarn } from '#shared/piece/types'
 
 export interface KnitPosition {
@@ -39,8 +40,10 @@ export interface KnitPosition {
   /** 1-based row at which the yarns next change, and the yarns then. */
   changeRow: number | null
   nextYarns: SlotYarn[]
-  /** The next thing the knitter must do besides knitting on. */
-  upcoming: null | { row: number; rowsAway: number; kind: 'section' | 'end'; text: string }
+  /** The next thing the knitter must do besides knitting on; `cardLock`: the card row to lock at the reader there. */
+  upcoming: null | { row: number; rowsAway: number; kind: 'section' | 'end'; text: string; cardLock?: number }
+  /** The punch card row of the current row, with the machine's card (null on plain rows or without one). */
+  card: CardRowAt | null
 }
 
 /**
@@ -100,6 +103,7 @@ export function knitPosition(timeline: PieceTimeline, compiled: CompiledPlan, co
       changeRow: null,
       nextYarns: [],
       upcoming: null,
+      card: null,
     }
   }
 
@@ -121,6 +125,7 @@ export function knitPosition(timeline: PieceTimeline, compiled: CompiledPlan, co
   const changeNow = lo > 0 && compiled.changes[lo - 1] === done
   const nextRun = runs[run + 1]
   const sectionEnd = span.start + span.rows // 0-based index of the first row after this section
+  const nextLock = nextRun ? cardRowAt(timeline, compiled, sectionEnd)?.lockRow : null
   const upcoming
     = nextRun
       ? {
@@ -128,6 +133,7 @@ export function knitPosition(timeline: PieceTimeline, compiled: CompiledPlan, co
           rowsAway: sectionEnd - done,
           kind: 'section' as const,
           text: describeSection(timeline.sections[nextRun.section]!, nextRun.rows, yarnBySlot),
+          ...(nextLock ? { cardLock: nextLock } : {}),
         }
       : { row: totalRows, rowsAway: totalRows - done, kind: 'end' as const, text: 'End of the piece: cast off as the plan says' }
 
@@ -155,6 +161,7 @@ export function knitPosition(timeline: PieceTimeline, compiled: CompiledPlan, co
     changeRow: change === undefined ? null : change + 1,
     nextYarns: change === undefined ? [] : pick(compiled.rows[change]!.yarns),
     upcoming,
+    card: cardRowAt(timeline, compiled, done),
   }
 }
 

@@ -40,6 +40,20 @@ export interface TimelineShape {
   leftOnNeedles: number
 }
 
+/**
+ * The machine's punch card, frozen with the timeline when the machine patterns from one and
+ * knits both yarns in one pass (one card row a row): what the knit view needs to say which card
+ * row should be at the reader.
+ */
+export interface TimelineCard {
+  /** Holes across (the machine's patterning width). */
+  width: number
+  /** The shortest loop; a card is whole chart repeats covering it (punchCard). */
+  minRows: number
+  /** Rows the reader reads ahead of the row being knitted. */
+  readerOffset: number
+}
+
 /** Everything needed to compile and show one piece's rows; frozen when the project is made. */
 export interface PieceTimeline {
   technique: 'together' | 'colour-by-colour'
@@ -49,6 +63,8 @@ export interface PieceTimeline {
   yarns: SlotYarn[]
   /** Absent for a rectangle (the needles stay `needles` on every row). */
   shape?: TimelineShape
+  /** Absent when the machine has no card (or none was named). */
+  card?: TimelineCard
 }
 
 export const rowEventKinds = ['advance', 'back', 'jump'] as const

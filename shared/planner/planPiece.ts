@@ -15,7 +15,7 @@
 import {
   analyseFloats, centredOffset, chartFromRows, chartToRows, describeShaping, KnittingInputError, repeatsAcross, rowsForLength, spreadShaping, stitchesForWidth,
 } from '#shared/engine'
-import { slotSymbols, type PieceSection, type PieceTimeline, type SlotYarn } from '#shared/piece/types'
+import { slotSymbols, type PieceSection, type PieceTimeline, type SlotYarn, type TimelineCard } from '#shared/piece/types'
 import type { PieceShapeNumbers, PlanPieceInput, PlanSectionNumbers } from '#shared/types/plan'
 import type { SectionShaping, Chart, Gauge } from '#shared/engine'
 import { compilePieceTimeline } from '#shared/piece/timeline'
@@ -39,6 +39,8 @@ export interface PlanPieceContext {
   yarns: { slot: string; name: string; hex: string }[]
   motifs: Map<number, PlanMotif>
   floatLimit: number
+  /** The machine's punch card, kept in the timeline for the knit view (timelineCard). */
+  card?: TimelineCard
 }
 
 export interface WorkedPlanPiece {
@@ -77,6 +79,7 @@ export function workPlanPiece(piece: PlanPieceInput, ctx: PlanPieceContext): Wor
     needles,
     sections: out,
     yarns: planSlotYarns(ctx.yarns),
+    ...(ctx.card && ctx.technique === 'together' ? { card: ctx.card } : {}),
   }
   const compiled = compilePieceTimeline(timeline)
   return {

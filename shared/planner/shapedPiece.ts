@@ -78,6 +78,7 @@ export function workShapedPiece(piece: PlanPieceInput, spec: ShapeSpec, size: st
     sections: fitted.sections,
     yarns: planSlotYarns(ctx.yarns),
     shape: { size, kind: spec.kind, castOn, rows: shaped.rows, leftOnNeedles: shaped.leftOnNeedles },
+    ...(ctx.card ? { card: ctx.card } : {}),
   }
   const compiled = compilePieceTimeline(timeline)
   const needles = shapedNeedles(timeline.shape!)

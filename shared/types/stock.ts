@@ -18,8 +18,25 @@ export interface MachineItem {
   technique: Technique
   passesPerColour: number
   notes: string
+  /** The machine's punch card, or null for a machine that does not pattern from one. */
+  card: MachineCard | null
   createdAt: string
   updatedAt: string
+}
+
+/** A machine's punch card, in the card's own measures (shared/motif/cardSettings.ts has the starting values). */
+export interface MachineCard {
+  /** Hole centre to hole centre, across and down, in mm. */
+  holePitchMm: number
+  rowPitchMm: number
+  /** Card beyond the outer holes' centres plus half a pitch, each side, in mm. */
+  edgeMm: number
+  /** The shortest loop that goes round the reader, in rows. */
+  minRows: number
+  /** Rows repeated at the end, where the card overlaps to join into a loop. */
+  joinRows: number
+  /** Rows the reader reads ahead of the row being knitted (0: it reads the row knitted). */
+  readerOffset: number
 }
 
 /** GET /api/yarns (list; keeps YarnListItem's fields), POST /api/yarns, PATCH /api/yarns/:id. */

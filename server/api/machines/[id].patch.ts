@@ -7,6 +7,6 @@ export default defineEventHandler(async (event) => {
   const { id } = paramsValid(event, idParams)
   const { row } = await requireStudioRow(event, Machine, id, 'designer', 'Machine')
   const body = await readValid(event, machinePatch)
-  await row.update(body)
+  await row.update(machineColumns(body))
   return machineItem(row)
 })

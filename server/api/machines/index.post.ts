@@ -7,7 +7,7 @@ export default defineEventHandler(async (event) => {
   const { studioId } = await readValid(event, studioRef)
   await studioMember(event, studioId, 'designer')
   const body = await readValid(event, machineBody)
-  const machine = await Machine.create(body)
+  const machine = await Machine.create(machineColumns(body))
   setResponseStatus(event, 201)
   return machineItem(machine)
 })
